@@ -1,0 +1,150 @@
+package org.slackwater.query;
+
+import java.util.Locale;
+import java.util.regex.Pattern;
+import java.util.stream.Collectors;
+import org.slackwater.query.ast.AreaSeries;
+import org.slackwater.query.ast.BoxRegion;
+import org.slackwater.query.ast.CircleRegion;
+import org.slackwater.query.ast.ClippedRegion;
+import org.slackwater.query.ast.Comparison;
+import org.slackwater.query.ast.Coordinate;
+import org.slackwater.query.ast.DescribeVariable;
+import org.slackwater.query.ast.ListRegions;
+import org.slackwater.query.ast.ListVariables;
+import org.slackwater.query.ast.NamedRegion;
+import org.slackwater.query.ast.Period;
+import org.slackwater.query.ast.RegionRef;
+import org.slackwater.query.ast.Script;
+import org.slackwater.query.ast.Statement;
+import org.slackwater.query.ast.Statistic;
+import org.slackwater.query.ast.StatisticKind;
+import org.slackwater.query.ast.Step;
+import org.slackwater.query.ast.WktRegion;
+
+/**
+ * Writes trees back as canonical query text: lower-case keywords, one statement per line
+ * separated by ';', {@code during <date>} for a one-date period and {@code from .. to ..}
+ * otherwise, coordinates with hemisphere letters (plain signed degrees when a longitude is
+ * beyond 180), numbers in plain decimal notation.
+ *
+ * <p>For every tree the parser produces, {@code QueryParser.parse(print(tree))} equals the tree
+ * once positions are erased. Trees built by code must stay within what the language can say
+ * (whole-number percentiles, names without line breaks), or the text will not parse back.
+ */
+public final class QueryPrinter {
+
+    /** Units that can be written without quotes: exactly the lexer's unit word after 'in'. */
+    private static final Pattern BARE_UNIT = Pattern.compile("[a-z0-9%][a-z0-9_%/\\-^.*]*", Pattern.CASE_INSENSITIVE);
+
+    private QueryPrinter() {}
+
+    public static String print(Script script) {
+        return script.statements().stream().map(QueryPrinter::print).collect(Collectors.joining(";\n"));
+    }
+
+    public static String print(Statement statement) {
+        if (statement instanceof AreaSeries) {
+            return areaSeries((AreaSeries) statement);
+        }
+        if (statement instanceof ListVariables) {
+            return "list variables";
+        }
+        if (statement instanceof ListRegions) {
+            return "list regions";
+        }
+        if (statement instanceof DescribeVariable) {
+            return "describe " + ((DescribeVariable) statement).variable().name();
+        }
+        throw new IllegalArgumentException("unknown statement " + statement.getClass().getName());
+    }
+
+    private static String areaSeries(AreaSeries s) {
+        StringBuilder text = new StringBuilder();
+        text.append(statistic(s.statistic())).append(' ').append(s.variable().name())
+                .append(" over ").append(print(s.region()))
+                .append(' ').append(period(s.period()))
+                .append(' ').append(step(s.step()));
+        s.unit().ifPresent(u -> text.append(" in ").append(
+                BARE_UNIT.matcher(u.unit()).matches() ? u.unit() : Literals.quote(u.unit())));
+        s.comparison().ifPresent(c -> text.append(' ').append(comparison(c)));
+        s.coverage().ifPresent(c -> text.append(" with coverage at least ")
+                .append(Literals.formatNumber(c.percent())).append(" %"));
+        return text.toString();
+    }
+
+    private static String statistic(Statistic statistic) {
+        if (statistic.kind() == StatisticKind.PERCENTILE) {
+            return "p" + Literals.formatNumber(statistic.percentile());
+        }
+        return statistic.kind().name().toLowerCase(Locale.ROOT);
+    }
+
+    public static String print(RegionRef region) {
+        if (region instanceof NamedRegion) {
+            return Literals.quote(((NamedRegion) region).name());
+        }
+        if (region instanceof CircleRegion) {
+            CircleRegion c = (CircleRegion) region;
+            return "circle(" + coordinate(c.center().latitude(), c.center().longitude()) + ", "
+                    + Literals.formatNumber(c.radius().value()) + " " + c.radius().unit() + ")";
+        }
+        if (region instanceof BoxRegion) {
+            BoxRegion b = (BoxRegion) region;
+            return "box(" + coordinate(b.south(), b.west()) + ", " + coordinate(b.north(), b.east()) + ")";
+        }
+        if (region instanceof WktRegion) {
+            return "wkt " + Literals.quote(((WktRegion) region).wkt());
+        }
+        if (region instanceof ClippedRegion) {
+            ClippedRegion c = (ClippedRegion) region;
+            // The chain is left-associative, so only a clipped region on the right needs parentheses.
+            String clip = print(c.clip());
+            return print(c.region()) + " clipped to " + (c.clip() instanceof ClippedRegion ? "(" + clip + ")" : clip);
+        }
+        throw new IllegalArgumentException("unknown region " + region.getClass().getName());
+    }
+
+    private static String coordinate(double latitude, double longitude) {
+        if (longitude > 180) {
+            return Literals.formatNumber(latitude) + ", " + Literals.formatNumber(longitude);
+        }
+        return Literals.formatNumber(Math.abs(latitude)) + (latitude < 0 ? " S" : " N") + ", "
+                + Literals.formatNumber(Math.abs(longitude)) + (longitude < 0 ? " W" : " E");
+    }
+
+    /** Used for area-series periods: {@code during 2014} or {@code from 2014-06 to 2014-08}. */
+    private static String period(Period period) {
+        return period.isSingleDate()
+                ? "during " + period.from().text()
+                : "from " + period.from().text() + " to " + period.to().text();
+    }
+
+    private static String baseline(Period period) {
+        return period.isSingleDate() ? period.from().text() : period.from().text() + " to " + period.to().text();
+    }
+
+    private static String step(Step step) {
+        return "by " + step.kind().name().toLowerCase(Locale.ROOT).replace('_', ' ');
+    }
+
+    private static String comparison(Comparison comparison) {
+        String kind;
+        switch (comparison.kind()) {
+            case ANOMALY:
+                kind = "as anomaly";
+                break;
+            case STANDARDIZED_ANOMALY:
+                kind = "as standardized anomaly";
+                break;
+            default:
+                kind = "as percentile";
+        }
+        return comparison.baseline().map(b -> kind + " against " + baseline(b)).orElse(kind);
+    }
+
+    /** Coordinates as this printer writes them, for messages elsewhere. */
+    static String coordinate(Coordinate c) {
+        return coordinate(c.latitude(), c.longitude());
+    }
+}

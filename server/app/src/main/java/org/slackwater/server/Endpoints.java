@@ -1,0 +1,216 @@
+package org.slackwater.server;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import io.netty.handler.codec.http.HttpResponseStatus;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.OutputStreamWriter;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import org.slackwater.core.Workspace;
+import org.slackwater.core.catalog.CubeEntry;
+import org.slackwater.core.cube.CubeDescriptor;
+import org.slackwater.core.cube.LatLonGrid;
+import org.slackwater.core.ingest.IngestException;
+import org.slackwater.core.ingest.IngestReport;
+import org.slackwater.core.region.GeoJsonRegions;
+import org.slackwater.core.region.Region;
+import org.slackwater.core.region.RegionException;
+import org.slackwater.core.result.CsvWriter;
+import org.slackwater.core.result.JsonWriter;
+import org.slackwater.core.result.ResultTable;
+import org.slackwater.query.QueryException;
+
+/** What each route does, independent of Netty: request parts in, a {@link Reply} out. */
+final class Endpoints {
+  private static final ObjectMapper JSON = new ObjectMapper();
+  private static final String JSON_TYPE = "application/json";
+
+  private final Workspace workspace;
+  private final ServerConfig config;
+
+  Endpoints(Workspace workspace, ServerConfig config) {
+    this.workspace = workspace;
+    this.config = config;
+  }
+
+  Reply health() {
+    ObjectNode o = JSON.createObjectNode();
+    o.put("status", "ok");
+    o.put("cubes", workspace.catalog().cubes().size());
+    o.put("regions", workspace.catalog().regions().size());
+    return Reply.text(HttpResponseStatus.OK, JSON_TYPE, o.toString());
+  }
+
+  Reply query(String text, String formatParam, String accept) {
+    Optional<ResultFormat> format = ResultFormat.choose(formatParam, accept);
+    if (format.isEmpty()) {
+      return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "No such result format",
+          "results come as " + ResultFormat.names() + "; ask with ?format= or the Accept header");
+    }
+    if (text.isBlank()) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The query cannot be run",
+          "the request body is empty; send the query text as the body, e.g. 'list variables'");
+    }
+    List<ResultTable> tables;
+    try {
+      tables = workspace.engine().run(text);
+    } catch (QueryException e) {
+      return Problem.query(e);
+    }
+    try {
+      ByteArrayOutputStream out = new ByteArrayOutputStream();
+      if (format.get() == ResultFormat.CSV) {
+        if (tables.size() != 1) {
+          return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "One table per CSV",
+              "the query has " + tables.size() + " statements but CSV holds one table; ask for ?format=json or send one statement");
+        }
+        CsvWriter.write(tables.get(0), new OutputStreamWriter(out, StandardCharsets.UTF_8));
+        return Reply.of(HttpResponseStatus.OK, "text/csv; charset=utf-8; header=present", out.toByteArray());
+      }
+      JsonWriter.write(tables, List.of(), out);
+      return Reply.of(HttpResponseStatus.OK, JSON_TYPE, out.toByteArray());
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  Reply cubes() {
+    ArrayNode a = JSON.createArrayNode();
+    for (CubeEntry c : workspace.catalog().cubes()) {
+      a.add(cubeJson(c));
+    }
+    return Reply.text(HttpResponseStatus.OK, JSON_TYPE, a.toString());
+  }
+
+  Reply cube(String name) {
+    return workspace.catalog().cube(name)
+        .map(c -> Reply.text(HttpResponseStatus.OK, JSON_TYPE, cubeJson(c).toString()))
+        .orElseGet(() -> Problem.of(HttpResponseStatus.NOT_FOUND, "No such cube", "there is no cube named '" + name + "'; GET /api/cubes lists them"));
+  }
+
+  Reply regions() {
+    ObjectNode fc = JSON.createObjectNode();
+    fc.put("type", "FeatureCollection");
+    ArrayNode features = fc.putArray("features");
+    for (Region r : workspace.catalog().regions()) {
+      try {
+        JsonNode f = JSON.readTree(r.geoJson());
+        ObjectNode feature = f.isObject() && "Feature".equals(f.path("type").asText()) ? (ObjectNode) f : wrap(f);
+        ObjectNode props = feature.with("properties");
+        props.put("name", r.name());
+        props.put("kind", r.kind());
+        props.put("area_km2", r.areaM2() / 1e6);
+        features.add(feature);
+      } catch (IOException e) {
+        throw new UncheckedIOException(e);
+      }
+    }
+    return Reply.text(HttpResponseStatus.OK, "application/geo+json", fc.toString());
+  }
+
+  Reply putRegion(String name, String body) {
+    Region r;
+    try {
+      r = GeoJsonRegions.parseNamed(name, body);
+    } catch (RegionException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The region cannot be stored", e.getMessage());
+    }
+    workspace.catalog().putRegion(r);
+    return Reply.text(HttpResponseStatus.OK, JSON_TYPE, JSON.createObjectNode().put("region", r.name()).put("area_km2", r.areaM2() / 1e6).toString());
+  }
+
+  /** Ingests a file under the configured ingest root, named by a relative path in {"path": "..."}. */
+  Reply ingest(String body) {
+    if (config.ingestRoot().isEmpty()) {
+      return Problem.of(HttpResponseStatus.FORBIDDEN, "Server-side ingest is off", "start the server with --ingest-root DIR to allow ingesting files under DIR");
+    }
+    String rel;
+    try {
+      rel = JSON.readTree(body).path("path").asText("");
+    } catch (IOException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The ingest request is not JSON", "send {\"path\": \"relative/path/file.nc\"}");
+    }
+    Path root = config.ingestRoot().get().toAbsolutePath().normalize();
+    Path file = root.resolve(rel).normalize();
+    if (rel.isBlank() || !file.startsWith(root)) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The path is not under the ingest root", "give a path relative to the ingest root, without '..'");
+    }
+    if (!Files.isRegularFile(file)) {
+      return Problem.of(HttpResponseStatus.NOT_FOUND, "No such file", "there is no file '" + rel + "' under the ingest root");
+    }
+    try {
+      List<IngestReport> reports = workspace.ingestor().ingest(file, Optional.empty());
+      ArrayNode a = JSON.createArrayNode();
+      for (IngestReport r : reports) {
+        a.addObject().put("cube", r.cube()).put("version", r.version()).put("values", r.values()).put("seconds", r.seconds());
+      }
+      return Reply.text(HttpResponseStatus.OK, JSON_TYPE, a.toString());
+    } catch (IngestException e) {
+      return Problem.of(HttpResponseStatus.UNPROCESSABLE_ENTITY, "The file cannot be ingested", e.getMessage());
+    }
+  }
+
+  Reply deleteCube(String name) {
+    Optional<Integer> v = workspace.catalog().remove(name);
+    if (v.isEmpty()) {
+      return Problem.of(HttpResponseStatus.NOT_FOUND, "No such cube", "there is no cube named '" + name + "'");
+    }
+    try {
+      workspace.store().deleteVersion(name, v.get());
+    } catch (IOException e) {
+      // The catalog no longer names it; the next start removes the files.
+    }
+    return Reply.of(HttpResponseStatus.NO_CONTENT, JSON_TYPE, new byte[0]);
+  }
+
+  private static ObjectNode wrap(JsonNode geometry) {
+    ObjectNode f = JSON.createObjectNode();
+    f.put("type", "Feature");
+    f.set("geometry", geometry);
+    f.putObject("properties");
+    return f;
+  }
+
+  private static ObjectNode cubeJson(CubeEntry c) {
+    CubeDescriptor d = c.descriptor();
+    LatLonGrid g = d.grid();
+    ObjectNode o = JSON.createObjectNode();
+    o.put("name", c.name());
+    o.put("version", c.version());
+    o.put("units", d.units());
+    o.put("source_units", d.sourceUnits());
+    o.put("standard_name", d.standardName());
+    o.put("long_name", d.longName());
+    o.put("steps", d.time().size());
+    if (d.time().size() > 0) {
+      o.put("first", d.time().instant(0).toString());
+      o.put("last", d.time().instant(d.time().size() - 1).toString());
+    }
+    o.put("calendar", d.time().calendar());
+    o.put("time_alignment", d.time().alignment().name().toLowerCase());
+    ObjectNode grid = o.putObject("grid");
+    grid.put("rows", g.ny());
+    grid.put("columns", g.nx());
+    grid.put("south", g.latLower(0));
+    grid.put("north", g.latUpper(g.ny() - 1));
+    grid.put("west", g.lonLower(0));
+    grid.put("east", g.lonUpper(g.nx() - 1));
+    ObjectNode p = o.putObject("provenance");
+    p.put("source_file", c.provenance().sourceFile());
+    p.put("source_sha256", c.provenance().sourceSha256());
+    p.put("source_variable", c.provenance().sourceVariable());
+    p.put("reader", c.provenance().reader());
+    p.put("ingested_at", c.provenance().ingestedAt().toString());
+    o.put("chunks", c.chunks().size());
+    o.put("stored_bytes", c.bytes());
+    return o;
+  }
+}

@@ -1,0 +1,59 @@
+package org.slackwater.server;
+
+import io.netty.bootstrap.ServerBootstrap;
+import io.netty.channel.Channel;
+import io.netty.channel.EventLoopGroup;
+import io.netty.channel.MultiThreadIoEventLoopGroup;
+import io.netty.channel.nio.NioIoHandler;
+import io.netty.channel.socket.nio.NioServerSocketChannel;
+import io.netty.util.concurrent.DefaultEventExecutorGroup;
+import io.netty.util.concurrent.EventExecutorGroup;
+import java.net.InetSocketAddress;
+import java.util.concurrent.TimeUnit;
+import org.slackwater.core.Workspace;
+
+/**
+ * The HTTP server's bootstrap: event loops, bind, graceful shutdown. Requests are answered by
+ * {@link ApiHandler} on a worker group sized to the machine, off the I/O threads.
+ */
+public final class HttpServer implements AutoCloseable {
+  private final EventLoopGroup boss = new MultiThreadIoEventLoopGroup(1, NioIoHandler.newFactory());
+  private final EventLoopGroup io = new MultiThreadIoEventLoopGroup(0, NioIoHandler.newFactory());
+  private final EventExecutorGroup workers = new DefaultEventExecutorGroup(Math.max(2, Runtime.getRuntime().availableProcessors()));
+  private final Channel channel;
+
+  private HttpServer(Workspace workspace, ServerConfig config) throws InterruptedException {
+    ServerBootstrap b = new ServerBootstrap()
+        .group(boss, io)
+        .channel(NioServerSocketChannel.class)
+        .childHandler(new HttpInitializer(new Endpoints(workspace, config), config, workers));
+    this.channel = b.bind(config.host(), config.port()).sync().channel();
+  }
+
+  static HttpServer start(Workspace workspace, ServerConfig config) throws InterruptedException {
+    return new HttpServer(workspace, config);
+  }
+
+  public int port() {
+    return ((InetSocketAddress) channel.localAddress()).getPort();
+  }
+
+  public String url() {
+    InetSocketAddress a = (InetSocketAddress) channel.localAddress();
+    return "http://" + a.getHostString() + ":" + a.getPort();
+  }
+
+  /** Blocks until the server channel closes. */
+  void awaitClose() throws InterruptedException {
+    channel.closeFuture().sync();
+  }
+
+  @Override
+  public void close() {
+    channel.close().awaitUninterruptibly();
+    // I/O loops first: they close open keep-alive connections, whose handlers still need the workers.
+    boss.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
+    io.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
+    workers.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
+  }
+}

@@ -1,0 +1,112 @@
+package org.slackwater.core;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.ServiceLoader;
+import org.apache.arrow.memory.BufferAllocator;
+import org.apache.arrow.memory.RootAllocator;
+import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.catalog.Catalog;
+import org.slackwater.core.ingest.Ingestor;
+import org.slackwater.core.query.QueryEngine;
+import org.slackwater.core.query.WeightsCache;
+import org.slackwater.core.spi.CubeSource;
+import org.slackwater.core.store.ChunkLayout;
+import org.slackwater.core.store.CubeStore;
+
+/**
+ * One data directory opened for use: the bounded Arrow allocator, the catalog ({@code
+ * catalog.db}), the chunk store ({@code cubes/}), the chunk cache, the ingestor and the query
+ * engine. Opening removes what a crashed ingest left behind (staging directories, versions the
+ * catalog does not name). Closing closes everything it opened, the allocator last, so a leaked
+ * Arrow buffer fails loudly.
+ *
+ * @param memoryLimitBytes the Arrow allocator's limit (off-heap buffers for chunk files)
+ * @param cacheBytes the chunk cache's heap budget
+ */
+public final class Workspace implements AutoCloseable {
+
+  private final Path root;
+  private final BufferAllocator allocator;
+  private final Catalog catalog;
+  private final CubeStore store;
+  private final ChunkCache cache;
+  private final Ingestor ingestor;
+  private final QueryEngine engine;
+  private final List<CubeSource> sources;
+
+  private Workspace(Path root, long memoryLimitBytes, long cacheBytes, ChunkLayout layout) throws IOException {
+    this.root = root;
+    this.allocator = new RootAllocator(memoryLimitBytes);
+    Catalog c = null;
+    try {
+      c = Catalog.open(root.resolve("catalog.db"));
+      this.catalog = c;
+      this.store = new CubeStore(root, allocator);
+      store.removeUnreferenced(catalog.liveVersionDirs());
+      this.cache = new ChunkCache(store, cacheBytes);
+      this.sources = loadSources();
+      this.ingestor = new Ingestor(sources, catalog, store, layout);
+      this.engine = new QueryEngine(catalog, cache, new WeightsCache(256));
+    } catch (IOException | RuntimeException e) {
+      if (c != null) {
+        c.close();
+      }
+      allocator.close();
+      throw e;
+    }
+  }
+
+  public static Workspace open(Path root) throws IOException {
+    return open(root, 1L << 30, 512L << 20, ChunkLayout.DEFAULT);
+  }
+
+  public static Workspace open(Path root, long memoryLimitBytes, long cacheBytes, ChunkLayout layout) throws IOException {
+    return new Workspace(root, memoryLimitBytes, cacheBytes, layout);
+  }
+
+  private static List<CubeSource> loadSources() {
+    List<CubeSource> out = new ArrayList<>();
+    ServiceLoader.load(CubeSource.class).forEach(out::add);
+    return List.copyOf(out);
+  }
+
+  public Path root() {
+    return root;
+  }
+
+  public Catalog catalog() {
+    return catalog;
+  }
+
+  public CubeStore store() {
+    return store;
+  }
+
+  public Ingestor ingestor() {
+    return ingestor;
+  }
+
+  public QueryEngine engine() {
+    return engine;
+  }
+
+  public List<CubeSource> sources() {
+    return sources;
+  }
+
+  public BufferAllocator allocator() {
+    return allocator;
+  }
+
+  @Override
+  public void close() {
+    try {
+      catalog.close();
+    } finally {
+      allocator.close();
+    }
+  }
+}

@@ -1,0 +1,275 @@
+package org.slackwater.core.catalog;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.PreparedStatement;
+import java.sql.ResultSet;
+import java.sql.SQLException;
+import java.sql.Statement;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import org.slackwater.core.cube.CubeDescriptor;
+import org.slackwater.core.cube.Footprint;
+import org.slackwater.core.region.GeoJsonRegions;
+import org.slackwater.core.region.Region;
+import org.slackwater.core.store.ChunkKey;
+import org.slackwater.core.store.ChunkLayout;
+import org.slackwater.core.store.ChunkRecord;
+
+/**
+ * The embedded, transactional catalog (SQLite over JDBC): which cube versions are published,
+ * their descriptions, chunk files with checksums, provenance; and the named regions.
+ *
+ * <p>Only the current version of each cube is listed; publishing a new version replaces the row
+ * in one transaction, so readers see the old version or the new one, never a mixture. Methods are
+ * synchronized: one connection, few writers, short transactions.
+ */
+public final class Catalog implements AutoCloseable {
+
+  private final Connection db;
+
+  private Catalog(Connection db) {
+    this.db = db;
+  }
+
+  public static Catalog open(Path file) throws IOException {
+    try {
+      Files.createDirectories(file.toAbsolutePath().getParent());
+      Connection c = DriverManager.getConnection("jdbc:sqlite:" + file.toAbsolutePath());
+      try (Statement s = c.createStatement()) {
+        s.execute("PRAGMA journal_mode=WAL");
+        s.execute("PRAGMA synchronous=FULL");
+        s.execute("PRAGMA foreign_keys=ON");
+        s.execute("""
+            CREATE TABLE IF NOT EXISTS cube (
+              name TEXT PRIMARY KEY, version INTEGER NOT NULL, descriptor TEXT NOT NULL,
+              chunk_steps INTEGER NOT NULL, chunk_rows INTEGER NOT NULL, chunk_columns INTEGER NOT NULL,
+              source_file TEXT NOT NULL, source_sha256 TEXT NOT NULL, source_variable TEXT NOT NULL,
+              reader TEXT NOT NULL, ingested_at TEXT NOT NULL, footprint BLOB NOT NULL)""");
+        s.execute("""
+            CREATE TABLE IF NOT EXISTS chunk (
+              cube TEXT NOT NULL REFERENCES cube(name) ON DELETE CASCADE, version INTEGER NOT NULL,
+              t0 INTEGER NOT NULL, y0 INTEGER NOT NULL, x0 INTEGER NOT NULL,
+              nt INTEGER NOT NULL, ny INTEGER NOT NULL, nx INTEGER NOT NULL,
+              file TEXT NOT NULL, sha256 TEXT NOT NULL, bytes INTEGER NOT NULL, valid INTEGER NOT NULL,
+              PRIMARY KEY (cube, version, t0, y0, x0))""");
+        s.execute("""
+            CREATE TABLE IF NOT EXISTS region (
+              name TEXT PRIMARY KEY COLLATE NOCASE, kind TEXT NOT NULL, geojson TEXT NOT NULL, updated_at TEXT NOT NULL)""");
+      }
+      return new Catalog(c);
+    } catch (SQLException e) {
+      throw new IOException("cannot open the catalog " + file + ": " + e.getMessage(), e);
+    }
+  }
+
+  /** Every published cube, by name. */
+  public synchronized List<CubeEntry> cubes() {
+    List<CubeEntry> out = new ArrayList<>();
+    try (PreparedStatement ps = db.prepareStatement("SELECT * FROM cube ORDER BY name"); ResultSet rs = ps.executeQuery()) {
+      while (rs.next()) {
+        out.add(entry(rs));
+      }
+    } catch (SQLException e) {
+      throw new CatalogException("reading the cube list failed: " + e.getMessage(), e);
+    }
+    return out;
+  }
+
+  public synchronized Optional<CubeEntry> cube(String name) {
+    try (PreparedStatement ps = db.prepareStatement("SELECT * FROM cube WHERE name = ?")) {
+      ps.setString(1, name);
+      try (ResultSet rs = ps.executeQuery()) {
+        return rs.next() ? Optional.of(entry(rs)) : Optional.empty();
+      }
+    } catch (SQLException e) {
+      throw new CatalogException("reading cube '" + name + "' failed: " + e.getMessage(), e);
+    }
+  }
+
+  /** The next version number for {@code name} (1 for a new cube). */
+  public synchronized int nextVersion(String name) {
+    return cube(name).map(c -> c.version() + 1).orElse(1);
+  }
+
+  /**
+   * Makes {@code entry} the current version of its cube, in one transaction.
+   *
+   * @return the version it replaced, if any (its files may now be deleted)
+   */
+  public synchronized Optional<Integer> publish(CubeEntry entry) {
+    try {
+      db.setAutoCommit(false);
+      Optional<Integer> previous = Optional.empty();
+      try (PreparedStatement ps = db.prepareStatement("SELECT version FROM cube WHERE name = ?")) {
+        ps.setString(1, entry.name());
+        try (ResultSet rs = ps.executeQuery()) {
+          if (rs.next()) {
+            previous = Optional.of(rs.getInt(1));
+          }
+        }
+      }
+      try (PreparedStatement del = db.prepareStatement("DELETE FROM cube WHERE name = ?")) {
+        del.setString(1, entry.name());
+        del.executeUpdate();
+      }
+      try (PreparedStatement ps = db.prepareStatement("INSERT INTO cube VALUES (?,?,?,?,?,?,?,?,?,?,?,?)")) {
+        ps.setString(1, entry.name());
+        ps.setInt(2, entry.version());
+        ps.setString(3, DescriptorJson.write(entry.descriptor()));
+        ps.setInt(4, entry.layout().steps());
+        ps.setInt(5, entry.layout().rows());
+        ps.setInt(6, entry.layout().columns());
+        Provenance p = entry.provenance();
+        ps.setString(7, p.sourceFile());
+        ps.setString(8, p.sourceSha256());
+        ps.setString(9, p.sourceVariable());
+        ps.setString(10, p.reader());
+        ps.setString(11, p.ingestedAt().toString());
+        ps.setBytes(12, entry.footprint().toBytes());
+        ps.executeUpdate();
+      }
+      try (PreparedStatement ps = db.prepareStatement("INSERT INTO chunk VALUES (?,?,?,?,?,?,?,?,?,?,?,?)")) {
+        for (ChunkRecord c : entry.chunks()) {
+          ChunkKey k = c.key();
+          ps.setString(1, entry.name());
+          ps.setInt(2, entry.version());
+          ps.setInt(3, k.t0());
+          ps.setInt(4, k.y0());
+          ps.setInt(5, k.x0());
+          ps.setInt(6, k.nt());
+          ps.setInt(7, k.ny());
+          ps.setInt(8, k.nx());
+          ps.setString(9, c.file());
+          ps.setString(10, c.sha256());
+          ps.setLong(11, c.bytes());
+          ps.setLong(12, c.validCount());
+          ps.addBatch();
+        }
+        ps.executeBatch();
+      }
+      db.commit();
+      return previous;
+    } catch (SQLException e) {
+      rollback();
+      throw new CatalogException("publishing cube '" + entry.name() + "' failed, nothing changed: " + e.getMessage(), e);
+    } finally {
+      autoCommit();
+    }
+  }
+
+  /** Removes a cube from the catalog; returns the version it had, if any. */
+  public synchronized Optional<Integer> remove(String name) {
+    Optional<Integer> v = cube(name).map(CubeEntry::version);
+    try (PreparedStatement ps = db.prepareStatement("DELETE FROM cube WHERE name = ?")) {
+      ps.setString(1, name);
+      ps.executeUpdate();
+    } catch (SQLException e) {
+      throw new CatalogException("removing cube '" + name + "' failed: " + e.getMessage(), e);
+    }
+    return v;
+  }
+
+  /** {@code cube/vN} for every published version: what the store must keep. */
+  public synchronized Set<String> liveVersionDirs() {
+    Set<String> out = new HashSet<>();
+    for (CubeEntry c : cubes()) {
+      out.add(c.name() + "/v" + c.version());
+    }
+    return out;
+  }
+
+  public synchronized void putRegion(Region region) {
+    try (PreparedStatement ps = db.prepareStatement("INSERT OR REPLACE INTO region VALUES (?,?,?,?)")) {
+      ps.setString(1, region.name());
+      ps.setString(2, region.kind());
+      ps.setString(3, region.geoJson());
+      ps.setString(4, Instant.now().toString());
+      ps.executeUpdate();
+    } catch (SQLException e) {
+      throw new CatalogException("storing region '" + region.name() + "' failed: " + e.getMessage(), e);
+    }
+  }
+
+  /** Every region, in name order, re-read from the stored GeoJSON. */
+  public synchronized List<Region> regions() {
+    Map<String, Region> out = new LinkedHashMap<>();
+    try (PreparedStatement ps = db.prepareStatement("SELECT name, geojson FROM region ORDER BY name COLLATE NOCASE"); ResultSet rs = ps.executeQuery()) {
+      while (rs.next()) {
+        out.put(rs.getString(1), GeoJsonRegions.parseNamed(rs.getString(1), rs.getString(2)));
+      }
+    } catch (SQLException e) {
+      throw new CatalogException("reading regions failed: " + e.getMessage(), e);
+    }
+    return List.copyOf(out.values());
+  }
+
+  public synchronized boolean removeRegion(String name) {
+    try (PreparedStatement ps = db.prepareStatement("DELETE FROM region WHERE name = ?")) {
+      ps.setString(1, name);
+      return ps.executeUpdate() > 0;
+    } catch (SQLException e) {
+      throw new CatalogException("removing region '" + name + "' failed: " + e.getMessage(), e);
+    }
+  }
+
+  private CubeEntry entry(ResultSet rs) throws SQLException {
+    String name = rs.getString("name");
+    int version = rs.getInt("version");
+    ChunkLayout layout = new ChunkLayout(rs.getInt("chunk_steps"), rs.getInt("chunk_rows"), rs.getInt("chunk_columns"));
+    Provenance p = new Provenance(rs.getString("source_file"), rs.getString("source_sha256"), rs.getString("source_variable"),
+        rs.getString("reader"), Instant.parse(rs.getString("ingested_at")));
+    CubeDescriptor d = DescriptorJson.read(rs.getString("descriptor"));
+    Footprint fp = Footprint.fromBytes(d.grid().cells(), rs.getBytes("footprint"));
+    return new CubeEntry(name, version, d, layout, chunks(name, version), fp, p);
+  }
+
+  private List<ChunkRecord> chunks(String cube, int version) throws SQLException {
+    List<ChunkRecord> out = new ArrayList<>();
+    try (PreparedStatement ps = db.prepareStatement("SELECT * FROM chunk WHERE cube = ? AND version = ? ORDER BY t0, y0, x0")) {
+      ps.setString(1, cube);
+      ps.setInt(2, version);
+      try (ResultSet rs = ps.executeQuery()) {
+        while (rs.next()) {
+          ChunkKey k = new ChunkKey(rs.getInt("t0"), rs.getInt("y0"), rs.getInt("x0"), rs.getInt("nt"), rs.getInt("ny"), rs.getInt("nx"));
+          out.add(new ChunkRecord(k, rs.getString("file"), rs.getString("sha256"), rs.getLong("bytes"), rs.getLong("valid")));
+        }
+      }
+    }
+    return out;
+  }
+
+  private void rollback() {
+    try {
+      db.rollback();
+    } catch (SQLException ignored) {
+      // The original failure is what the caller needs to see.
+    }
+  }
+
+  private void autoCommit() {
+    try {
+      db.setAutoCommit(true);
+    } catch (SQLException ignored) {
+      // Next statement will fail loudly if the connection is broken.
+    }
+  }
+
+  @Override
+  public synchronized void close() {
+    try {
+      db.close();
+    } catch (SQLException e) {
+      throw new CatalogException("closing the catalog failed: " + e.getMessage(), e);
+    }
+  }
+}

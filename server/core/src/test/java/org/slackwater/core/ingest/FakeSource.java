@@ -1,0 +1,107 @@
+package org.slackwater.core.ingest;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import org.slackwater.core.cube.CubeDescriptor;
+import org.slackwater.core.cube.LatLonGrid;
+import org.slackwater.core.cube.TimeAxis;
+import org.slackwater.core.spi.CubeSource;
+import org.slackwater.core.spi.SourceCube;
+import org.slackwater.core.spi.SourceException;
+
+/**
+ * A source for tests: any file whose first line is {@code FAKE <variable> <ny> <nx> <nt> [fail-after-reads]}
+ * is a cube with value(t, y, x) = {@link #value}; every 7th cell-step is missing. With a
+ * fail-after count the source throws on that read, to test that a failed ingest changes nothing.
+ */
+public final class FakeSource implements CubeSource {
+  public static final LatLonGrid GRID_ORIGIN = LatLonGrid.regular(43.5, -32, 0.1, 0.1, 1, 1);
+
+  public static float value(int t, int y, int x) {
+    if ((t * 31 + y * 7 + x) % 7 == 3) {
+      return Float.NaN;
+    }
+    return (float) (10 + Math.sin(t / 10.0) + 0.1 * y - 0.05 * x);
+  }
+
+  public static LatLonGrid grid(int ny, int nx) {
+    return LatLonGrid.regular(43.5, -32, 0.1, 0.1, ny, nx);
+  }
+
+  public static Path write(Path file, String variable, int ny, int nx, int nt, int failAfter) throws java.io.IOException {
+    Files.writeString(file, "FAKE " + variable + " " + ny + " " + nx + " " + nt + " " + failAfter + "\n");
+    return file;
+  }
+
+  @Override
+  public String name() {
+    return "fake";
+  }
+
+  @Override
+  public boolean accepts(Path file) {
+    try (java.io.InputStream in = Files.newInputStream(file)) {
+      return new String(in.readNBytes(5), java.nio.charset.StandardCharsets.US_ASCII).equals("FAKE ");
+    } catch (java.io.IOException e) {
+      return false;
+    }
+  }
+
+  @Override
+  public List<String> variables(Path file) throws SourceException {
+    return List.of(header(file)[1]);
+  }
+
+  @Override
+  public SourceCube open(Path file, String variable) throws SourceException {
+    String[] h = header(file);
+    if (!h[1].equals(variable)) {
+      throw new SourceException("file " + file.getFileName() + ": no variable '" + variable + "'");
+    }
+    int ny = Integer.parseInt(h[2]), nx = Integer.parseInt(h[3]), nt = Integer.parseInt(h[4]);
+    int failAfter = Integer.parseInt(h[5]);
+    long[] secs = new long[nt];
+    long start = java.time.LocalDate.of(2014, 1, 1).toEpochDay() * 86400L;
+    for (int t = 0; t < nt; t++) {
+      secs[t] = start + t * 86400L;
+    }
+    CubeDescriptor d = new CubeDescriptor(variable, "sea_water_temperature", "test field", "degC", "K", grid(ny, nx),
+        new TimeAxis("standard", "days since 2014-01-01", TimeAxis.Alignment.EXACT, secs), Map.of());
+    return new SourceCube() {
+      int reads;
+
+      @Override
+      public CubeDescriptor descriptor() {
+        return d;
+      }
+
+      @Override
+      public void read(int t0, int ntr, int y0, int nyr, int x0, int nxr, float[] dest) throws SourceException {
+        if (failAfter > 0 && ++reads >= failAfter) {
+          throw new SourceException("file " + file.getFileName() + ", variable " + variable + ": the file is truncated");
+        }
+        int i = 0;
+        for (int t = t0; t < t0 + ntr; t++) {
+          for (int y = y0; y < y0 + nyr; y++) {
+            for (int x = x0; x < x0 + nxr; x++) {
+              dest[i++] = value(t, y, x);
+            }
+          }
+        }
+      }
+
+      @Override
+      public void close() {}
+    };
+  }
+
+  private static String[] header(Path file) throws SourceException {
+    try {
+      return Files.readString(file).trim().split(" ");
+    } catch (java.io.IOException e) {
+      throw new SourceException("cannot read " + file.getFileName());
+    }
+  }
+}

@@ -1,0 +1,111 @@
+package org.slackwater.core.ingest;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Optional;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.slackwater.core.Workspace;
+import org.slackwater.core.catalog.CubeEntry;
+import org.slackwater.core.store.ChunkLayout;
+import org.slackwater.core.store.ChunkRecord;
+
+class IngestorTest {
+  @TempDir Path dir;
+
+  private Workspace open() throws Exception {
+    return Workspace.open(dir.resolve("store"), 256L << 20, 64L << 20, new ChunkLayout(100, 4, 3));
+  }
+
+  @Test
+  void ingestWritesChunksThatReadBackExactly() throws Exception {
+    Path f = FakeSource.write(dir.resolve("temp.fake"), "temp", 9, 7, 250, 0);
+    try (Workspace ws = open()) {
+      List<IngestReport> r = ws.ingestor().ingest(f, Optional.empty());
+      assertEquals(1, r.size());
+      assertEquals(9L * 7 * 250, r.get(0).values());
+      CubeEntry c = ws.catalog().cube("temp").orElseThrow();
+      assertEquals(1, c.version());
+      // 3 time chunks x 3 row tiles x 3 column tiles.
+      assertEquals(27, c.chunks().size());
+      for (ChunkRecord ch : c.chunks()) {
+        float[] v = new float[ch.key().values()];
+        ws.store().read("temp", 1, ch, v);
+        int i = 0;
+        for (int t = 0; t < ch.key().nt(); t++) {
+          for (int y = 0; y < ch.key().ny(); y++) {
+            for (int x = 0; x < ch.key().nx(); x++) {
+              assertEquals(FakeSource.value(ch.key().t0() + t, ch.key().y0() + y, ch.key().x0() + x), v[i++], 0f);
+            }
+          }
+        }
+      }
+      assertEquals("temp.fake", c.provenance().sourceFile());
+      assertEquals(FileDigest.sha256(f), c.provenance().sourceSha256());
+    }
+  }
+
+  @Test
+  void aFailedIngestLeavesThePreviousVersionAndNoFiles() throws Exception {
+    Path good = FakeSource.write(dir.resolve("temp.fake"), "temp", 9, 7, 250, 0);
+    Path bad = FakeSource.write(dir.resolve("temp-bad.fake"), "temp", 9, 7, 250, 4);
+    try (Workspace ws = open()) {
+      ws.ingestor().ingest(good, Optional.empty());
+      CubeEntry before = ws.catalog().cube("temp").orElseThrow();
+      IngestException e = assertThrows(IngestException.class, () -> ws.ingestor().ingest(bad, Optional.empty()));
+      assertEquals("file temp-bad.fake, variable temp: the file is truncated", e.getMessage());
+      assertEquals(before, ws.catalog().cube("temp").orElseThrow());
+      try (Stream<Path> s = Files.list(dir.resolve("store/cubes/temp"))) {
+        assertEquals(List.of("v1"), s.map(p -> p.getFileName().toString()).toList());
+      }
+    }
+  }
+
+  @Test
+  void aSecondIngestPublishesVersionTwoAndRemovesVersionOne() throws Exception {
+    Path f = FakeSource.write(dir.resolve("temp.fake"), "temp", 3, 3, 10, 0);
+    try (Workspace ws = open()) {
+      ws.ingestor().ingest(f, Optional.empty());
+      ws.ingestor().ingest(f, Optional.empty());
+      assertEquals(2, ws.catalog().cube("temp").orElseThrow().version());
+      assertFalse(Files.exists(dir.resolve("store/cubes/temp/v1")));
+      assertTrue(Files.exists(dir.resolve("store/cubes/temp/v2")));
+    }
+  }
+
+  @Test
+  void leftoversOfACrashedIngestAreRemovedAtTheNextStart() throws Exception {
+    Path f = FakeSource.write(dir.resolve("temp.fake"), "temp", 3, 3, 10, 0);
+    try (Workspace ws = open()) {
+      ws.ingestor().ingest(f, Optional.empty());
+    }
+    // As if a process died after writing a staging directory, and another after renaming but before the commit.
+    Files.createDirectories(dir.resolve("store/cubes/temp/.staging-1234/x"));
+    Files.createDirectories(dir.resolve("store/cubes/temp/v2"));
+    try (Workspace ws = open()) {
+      try (Stream<Path> s = Files.list(dir.resolve("store/cubes/temp"))) {
+        assertEquals(List.of("v1"), s.map(p -> p.getFileName().toString()).toList());
+      }
+      assertEquals(1, ws.catalog().cube("temp").orElseThrow().version());
+    }
+  }
+
+  @Test
+  void unreadableInputsAreClearErrorsAndChangeNothing() throws Exception {
+    Path text = Files.writeString(dir.resolve("notes.txt"), "not a cube");
+    try (Workspace ws = open()) {
+      IngestException e = assertThrows(IngestException.class, () -> ws.ingestor().ingest(text, Optional.empty()));
+      assertTrue(e.getMessage().startsWith("file notes.txt is not in a format Slackwater reads (readers: [fake"), e.getMessage());
+      IngestException missing = assertThrows(IngestException.class, () -> ws.ingestor().ingest(dir.resolve("nope.nc"), Optional.empty()));
+      assertEquals("file nope.nc does not exist or is not a regular file", missing.getMessage());
+      assertTrue(ws.catalog().cubes().isEmpty());
+    }
+  }
+}
