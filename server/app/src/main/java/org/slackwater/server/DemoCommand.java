@@ -27,7 +27,7 @@ import picocli.CommandLine.Option;
  */
 @Command(name = "demo", mixinStandardHelpOptions = true,
     description = "Build (if needed) and serve the invented Wrenmouth estuary demo scenario.")
-final class DemoCommand implements Callable<Integer> {
+public final class DemoCommand implements Callable<Integer> {
 
   static final List<String> EXAMPLES = List.of(
       "mean chlorophyll over \"Outer Bay\" during 2014 by month",
@@ -90,7 +90,7 @@ final class DemoCommand implements Callable<Integer> {
   }
 
   /** Ingests files whose cube is missing or came from different bytes; (re)loads every region. */
-  static void prepare(Workspace ws, DemoManifest manifest) throws IOException, IngestException {
+  public static void prepare(Workspace ws, DemoManifest manifest) throws IOException, IngestException {
     for (Path f : manifest.netcdfFiles()) {
       String cube = f.getFileName().toString().replaceFirst("\\.nc$", "");
       Optional<CubeEntry> have = ws.catalog().cube(cube);

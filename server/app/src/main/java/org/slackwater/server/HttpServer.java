@@ -30,7 +30,7 @@ public final class HttpServer implements AutoCloseable {
     this.channel = b.bind(config.host(), config.port()).sync().channel();
   }
 
-  static HttpServer start(Workspace workspace, ServerConfig config) throws InterruptedException {
+  public static HttpServer start(Workspace workspace, ServerConfig config) throws InterruptedException {
     return new HttpServer(workspace, config);
   }
 
@@ -44,7 +44,7 @@ public final class HttpServer implements AutoCloseable {
   }
 
   /** Blocks until the server channel closes. */
-  void awaitClose() throws InterruptedException {
+  public void awaitClose() throws InterruptedException {
     channel.closeFuture().sync();
   }
 

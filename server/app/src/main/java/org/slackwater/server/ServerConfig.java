@@ -13,7 +13,7 @@ import java.util.Optional;
  * @param adminToken bearer token for the admin endpoints; empty = admin endpoints refused
  * @param ingestRoot directory under which {@code POST /api/cubes} may read files; empty = off
  */
-record ServerConfig(String host, int port, int maxBodyBytes, Optional<String> adminToken, Optional<Path> ingestRoot) {
+public record ServerConfig(String host, int port, int maxBodyBytes, Optional<String> adminToken, Optional<Path> ingestRoot) {
   ServerConfig {
     Objects.requireNonNull(host);
     Objects.requireNonNull(adminToken);
@@ -23,15 +23,15 @@ record ServerConfig(String host, int port, int maxBodyBytes, Optional<String> ad
     }
   }
 
-  static ServerConfig local(int port) {
+  public static ServerConfig local(int port) {
     return new ServerConfig("127.0.0.1", port, 1 << 20, Optional.ofNullable(System.getenv("SLACKWATER_ADMIN_TOKEN")).filter(s -> !s.isBlank()), Optional.empty());
   }
 
-  ServerConfig withIngestRoot(Path root) {
+  public ServerConfig withIngestRoot(Path root) {
     return new ServerConfig(host, port, maxBodyBytes, adminToken, Optional.of(root));
   }
 
-  ServerConfig withAdminToken(String token) {
+  public ServerConfig withAdminToken(String token) {
     return new ServerConfig(host, port, maxBodyBytes, Optional.of(token), ingestRoot);
   }
 }
