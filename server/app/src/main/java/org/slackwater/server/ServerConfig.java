@@ -14,7 +14,7 @@ import java.util.Optional;
  * @param ingestRoot directory under which {@code POST /api/cubes} may read files; empty = off
  */
 public record ServerConfig(String host, int port, int maxBodyBytes, Optional<String> adminToken, Optional<Path> ingestRoot) {
-  ServerConfig {
+  public ServerConfig {
     Objects.requireNonNull(host);
     Objects.requireNonNull(adminToken);
     Objects.requireNonNull(ingestRoot);
