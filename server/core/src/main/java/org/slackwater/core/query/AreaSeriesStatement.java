@@ -9,6 +9,7 @@ import java.util.Locale;
 import java.util.Map;
 import org.slackwater.core.analytics.AreaStatistics;
 import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.Climatology;
 import org.slackwater.core.analytics.DailySeries;
 import org.slackwater.core.analytics.IntegralUnits;
 import org.slackwater.core.analytics.SpatialStatistic;
@@ -25,6 +26,7 @@ import org.slackwater.core.result.Column;
 import org.slackwater.core.result.ResultTable;
 import org.slackwater.query.QueryException;
 import org.slackwater.query.ast.AreaSeries;
+import org.slackwater.query.ast.Comparison;
 import org.slackwater.query.ast.Identifier;
 import org.slackwater.query.ast.Period;
 
@@ -55,10 +57,6 @@ final class AreaSeriesStatement {
 
   ResultTable run(AreaSeries q) throws IOException {
     CubeEntry cube = catalog.cube(q.variable().name()).orElseThrow(() -> unknownVariable(catalog, q.variable(), source));
-    if (q.comparison().isPresent()) {
-      throw QueryException.at(q.comparison().get(), source,
-          "anomalies against a baseline are not available in this version", "ask for the plain series (leave out the 'as ...' clause)");
-    }
     List<String> warnings = new ArrayList<>();
     RegionResolver.Resolved region = new RegionResolver(catalog, source).resolve(q.region());
     CellWeights w;
@@ -67,7 +65,6 @@ final class AreaSeriesStatement {
     } catch (RegionException e) {
       throw QueryException.at(q.region(), source, region.label() + ": " + e.getMessage(), "");
     }
-
     if (!hasData(w, cube)) {
       throw QueryException.at(q.region(), source, "no cell of " + cube.name() + " inside " + region.label()
           + " ever holds a value (all are fill values, e.g. land)", "choose a region over the data, or a finer grid");
@@ -76,9 +73,8 @@ final class AreaSeriesStatement {
     int[] range = stepRange(time, q.period(), cube.name(), warnings);
     SpatialStatistic stat = statistic(q);
     double coverage = q.coverage().map(c -> c.percent()).orElse(DEFAULT_COVERAGE_PERCENT);
-    DailySeries daily = AreaStatistics.compute(cache, cube, w, stat, range[0], range[1], coverage / 100.0);
     TemporalStep step = TemporalStep.valueOf(q.step().kind().name());
-    StepSeries series = TemporalAggregation.aggregate(daily, step, stat);
+    StepSeries series = series(cube, w, stat, step, range, coverage);
 
     String unit = cube.descriptor().units();
     double factor = 1;
@@ -95,7 +91,7 @@ final class AreaSeriesStatement {
             + " (value x " + fmt(nativeStepDays(time)) + " day per step); a period with any step missing is left empty");
       }
     }
-    UnitConversion conv = null;
+    UnitConversion conv = UnitConversion.between(unit, unit);
     if (q.unit().isPresent()) {
       String want = q.unit().get().unit();
       try {
@@ -105,15 +101,59 @@ final class AreaSeriesStatement {
       }
       unit = want;
     }
-    double[] values = series.value().clone();
-    for (int i = 0; i < values.length; i++) {
-      if (!Double.isNaN(values[i])) {
-        values[i] *= factor;
-        if (conv != null) {
-          values[i] = conv.apply(values[i]);
+    double[] values = scaled(series.value(), factor, conv);
+
+    Map<String, String> meta = new LinkedHashMap<>();
+    String valueName = statName(q) + "_" + cube.name();
+    String valueUnit = unit;
+    double[] baseMean = null, baseSd = null;
+    long[] baseN = null;
+    if (q.comparison().isPresent()) {
+      Comparison cmp = q.comparison().get();
+      int[] baseRange = baselineRange(time, cmp, cube.name());
+      StepSeries base = series(cube, w, stat, step, baseRange, coverage);
+      Climatology clim = Climatology.of(new StepSeries(step, base.start(), scaled(base.value(), factor, conv), base.validFraction(),
+          base.meanValidCells(), base.stepsWithValue(), base.stepsExpected()), Climatology.DEFAULT_DAY_WINDOW);
+      int n = values.length;
+      baseMean = new double[n];
+      baseSd = new double[n];
+      baseN = new long[n];
+      for (int i = 0; i < n; i++) {
+        LocalDate d = series.start()[i];
+        baseMean[i] = clim.mean(d);
+        baseSd[i] = clim.sd(d);
+        baseN[i] = clim.n(d);
+        values[i] = switch (cmp.kind()) {
+          case ANOMALY -> clim.anomaly(d, values[i]);
+          case STANDARDIZED_ANOMALY -> clim.standardizedAnomaly(d, values[i]);
+          case PERCENTILE_RANK -> clim.percentileRank(d, values[i]);
+        };
+      }
+      switch (cmp.kind()) {
+        case ANOMALY -> valueName = "anomaly_" + valueName;
+        case STANDARDIZED_ANOMALY -> {
+          valueName = "standardized_anomaly_" + valueName;
+          valueUnit = "1";
+        }
+        case PERCENTILE_RANK -> {
+          valueName = "percentile_rank_" + valueName;
+          valueUnit = "%";
         }
       }
+      int with = 0, expected = 0;
+      for (int i = 0; i < base.size(); i++) {
+        with += base.value()[i] == base.value()[i] ? 1 : 0;
+        expected++;
+      }
+      meta.put("baseline", time.date(baseRange[0]) + " to " + time.date(baseRange[1] - 1));
+      meta.put("baseline_periods_with_value", with + " of " + expected);
+      meta.put("climatology", "by " + classDescription(step) + (step == TemporalStep.DAY
+          ? ", pooled over +/-" + Climatology.DEFAULT_DAY_WINDOW + " days" : ""));
+      if (with < 0.8 * expected) {
+        warnings.add("the baseline has values for only " + with + " of its " + expected + " periods");
+      }
     }
+
     int n = series.size();
     LocalDate[] end = new LocalDate[n];
     String[] label = new String[n];
@@ -124,40 +164,102 @@ final class AreaSeriesStatement {
       days[i] = series.stepsWithValue()[i];
       expected[i] = series.stepsExpected()[i];
     }
-    String valueName = statName(q) + "_" + cube.name();
     List<Column> cols = new ArrayList<>();
     cols.add(new Column.Dates("time", series.start()));
     if (step != TemporalStep.DAY) {
       cols.add(new Column.Dates("end", end));
       cols.add(new Column.Strings("period", label));
     }
-    cols.add(new Column.Doubles(valueName, unit, values));
+    cols.add(new Column.Doubles(valueName, valueUnit, values));
+    if (baseMean != null) {
+      cols.add(new Column.Doubles("baseline_mean", unit, baseMean));
+      cols.add(new Column.Doubles("baseline_sd", unit, baseSd));
+      cols.add(new Column.Longs("baseline_n", "", baseN));
+    }
     cols.add(new Column.Doubles("valid_fraction", "1", series.validFraction()));
     cols.add(new Column.Doubles("cells", "", series.meanValidCells()));
     if (step != TemporalStep.DAY) {
       cols.add(new Column.Longs("steps", "", days));
       cols.add(new Column.Longs("steps_expected", "", expected));
     }
-    Map<String, String> meta = new LinkedHashMap<>();
-    meta.put("query", source);
-    meta.put("statistic", statName(q));
-    meta.put("variable", cube.name());
-    meta.put("cube_version", Integer.toString(cube.version()));
-    meta.put("source_file", cube.provenance().sourceFile());
-    meta.put("units", unit);
-    meta.put("region", region.label());
-    meta.put("region_area_m2", Double.toString(w.regionAreaM2()));
-    meta.put("region_area_on_grid_m2", Double.toString(w.totalArea()));
-    meta.put("region_cells", Integer.toString(w.size()));
-    meta.put("step", step.name().toLowerCase(Locale.ROOT));
-    meta.put("coverage_rule", "native steps with less than " + fmt(coverage) + " % of the region's area valid are missing");
-    meta.put("calendar", time.calendar() + " (" + time.alignment().name().toLowerCase(Locale.ROOT) + ")");
+    Map<String, String> head = new LinkedHashMap<>();
+    head.put("query", source);
+    head.put("statistic", statName(q));
+    head.put("variable", cube.name());
+    head.put("cube_version", Integer.toString(cube.version()));
+    head.put("source_file", cube.provenance().sourceFile());
+    head.put("units", valueUnit);
+    head.put("region", region.label());
+    head.put("region_area_m2", Double.toString(w.regionAreaM2()));
+    head.put("region_area_on_grid_m2", Double.toString(w.totalArea()));
+    head.put("region_cells", Integer.toString(w.size()));
+    head.put("step", step.name().toLowerCase(Locale.ROOT));
+    head.put("coverage_rule", "native steps with less than " + fmt(coverage) + " % of the region's data area valid are missing");
+    head.put("calendar", time.calendar() + " (" + time.alignment().name().toLowerCase(Locale.ROOT) + ")");
+    head.putAll(meta);
     if (w.totalArea() < 0.98 * w.regionAreaM2()) {
       warnings.add(String.format(Locale.ROOT, "only %.0f %% of the region lies on the grid of %s", 100 * w.totalArea() / w.regionAreaM2(), cube.name()));
     }
-    String title = statName(q) + " " + cube.name() + " over " + region.label() + ", by " + step.name().toLowerCase(Locale.ROOT).replace('_', ' ')
+    String title = q.comparison().map(c -> switch (c.kind()) {
+          case ANOMALY -> "anomaly of ";
+          case STANDARDIZED_ANOMALY -> "standardized anomaly of ";
+          case PERCENTILE_RANK -> "percentile rank of ";
+        }).orElse("")
+        + statName(q) + " " + cube.name() + " over " + region.label() + ", by " + step.name().toLowerCase(Locale.ROOT).replace('_', ' ')
         + ", " + q.period().start() + " to " + q.period().endInclusive();
-    return new ResultTable(title, cols, meta, warnings);
+    return new ResultTable(title, cols, head, warnings);
+  }
+
+  private StepSeries series(CubeEntry cube, CellWeights w, SpatialStatistic stat, TemporalStep step, int[] range, double coverage) throws IOException {
+    DailySeries daily = AreaStatistics.compute(cache, cube, w, stat, range[0], range[1], coverage / 100.0);
+    return TemporalAggregation.aggregate(daily, step, stat);
+  }
+
+  private static double[] scaled(double[] v, double factor, UnitConversion conv) {
+    double[] out = v.clone();
+    for (int i = 0; i < out.length; i++) {
+      if (!Double.isNaN(out[i])) {
+        out[i] = conv.apply(out[i] * factor);
+      }
+    }
+    return out;
+  }
+
+  /** The baseline's step range: as given, or the cube's complete calendar years. */
+  private int[] baselineRange(TimeAxis time, Comparison cmp, String cube) {
+    LocalDate first = time.date(0), last = time.date(time.size() - 1);
+    LocalDate start, end;
+    if (cmp.baseline().isPresent()) {
+      Period b = cmp.baseline().get();
+      start = b.start();
+      end = b.endInclusive();
+      if (start.isBefore(first) || end.isAfter(last)) {
+        throw QueryException.at(b, source, "the baseline " + start + " to " + end + " reaches outside the " + cube + " data",
+            cube + " covers " + first + " to " + last + "; choose baseline years within it");
+      }
+    } else {
+      int y0 = first.getDayOfYear() == 1 ? first.getYear() : first.getYear() + 1;
+      int y1 = last.getMonthValue() == 12 && last.getDayOfMonth() == 31 ? last.getYear() : last.getYear() - 1;
+      if (y1 < y0) {
+        throw QueryException.at(cmp, source, "the " + cube + " data hold no complete year to use as a baseline",
+            "give one with 'against <from> to <to>'");
+      }
+      start = LocalDate.of(y0, 1, 1);
+      end = LocalDate.of(y1, 12, 31);
+    }
+    int from = time.firstAtOrAfter(start.toEpochDay() * 86_400L);
+    int to = time.firstAtOrAfter(end.plusDays(1).toEpochDay() * 86_400L);
+    return new int[] {from, to};
+  }
+
+  private static String classDescription(TemporalStep step) {
+    return switch (step) {
+      case DAY -> "day of year";
+      case WEEK -> "ISO week";
+      case MONTH -> "calendar month";
+      case SEASON -> "season";
+      case YEAR, WATER_YEAR -> "year (one class)";
+    };
   }
 
   private int[] stepRange(TimeAxis time, Period p, String cube, List<String> warnings) {

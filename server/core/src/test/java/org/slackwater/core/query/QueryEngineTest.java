@@ -92,6 +92,30 @@ class QueryEngineTest {
   }
 
   @Test
+  void anAnomalyIsTheValueMinusTheBaselineMeanOfItsClass() {
+    // Weekly anomaly of week 2014-W10 against a baseline of the same weeks: value - mean(baseline weeks of that class).
+    ResultTable plain = ws.engine().run("mean temp over \"Test Box\" from 2014-01-06 to 2014-04-27 by week").get(0);
+    ResultTable anom = ws.engine().run("mean temp over \"Test Box\" from 2014-01-06 to 2014-04-27 by week as anomaly against 2014-01-06 to 2014-04-27").get(0);
+    Column.Doubles v = (Column.Doubles) plain.column("mean_temp");
+    Column.Doubles a = (Column.Doubles) anom.column("anomaly_mean_temp");
+    // One year of baseline: each ISO week is its own class, so every anomaly is 0.
+    for (int i = 0; i < v.size(); i++) {
+      assertEquals(0.0, a.get(i), 1e-9);
+      assertEquals(v.get(i), ((Column.Doubles) anom.column("baseline_mean")).get(i), 1e-9);
+    }
+    ResultTable pct = ws.engine().run("mean temp over \"Test Box\" during 2014-02 by day as percentile against 2014-01-01 to 2014-04-30").get(0);
+    assertEquals("%", pct.column("percentile_rank_mean_temp").unit());
+  }
+
+  @Test
+  void aBaselineOutsideTheDataIsAnError() {
+    QueryException e = assertThrows(QueryException.class,
+        () -> ws.engine().run("mean temp over \"Test Box\" during 2014-02 by month as anomaly against 2006 to 2020"));
+    assertEquals("the baseline 2006-01-01 to 2020-12-31 reaches outside the temp data", e.detail());
+    assertEquals("temp covers 2014-01-01 to 2014-04-30; choose baseline years within it", e.hint());
+  }
+
+  @Test
   void catalogStatementsListWhatIsLoaded() {
     List<ResultTable> r = ws.engine().run("list variables; list regions; describe temp");
     assertEquals("temp", ((Column.Strings) r.get(0).column("variable")).get(0));
