@@ -52,13 +52,17 @@ final class CatalogStatements {
         Map.of(), List.of());
   }
 
-  ResultTable describe(DescribeVariable d) {
-    String wanted = d.variable().name();
-    Optional<CubeEntry> hit = catalog.cube(wanted);
+  /** Fails with a positioned error if the variable is unknown. */
+  CubeEntry check(DescribeVariable d) {
+    Optional<CubeEntry> hit = catalog.cube(d.variable().name());
     if (hit.isEmpty()) {
-      throw AreaSeriesStatement.unknownVariable(catalog, d.variable(), source);
+      throw SeriesPlanner.unknownVariable(catalog, d.variable(), source);
     }
-    CubeEntry c = hit.get();
+    return hit.get();
+  }
+
+  ResultTable describe(DescribeVariable d) {
+    CubeEntry c = check(d);
     CubeDescriptor desc = c.descriptor();
     LatLonGrid g = desc.grid();
     Map<String, String> p = new LinkedHashMap<>();

@@ -36,31 +36,56 @@ public final class QueryEngine {
     this.weights = Objects.requireNonNull(weights);
   }
 
+  /** Parses, analyses every statement (so an error in the last one is reported before any work), then executes. */
   public List<ResultTable> run(String text) {
-    Script script = QueryParser.parse(text);
+    List<Object> plans = analyze(text);
     List<ResultTable> out = new ArrayList<>();
-    for (Statement s : script.statements()) {
-      out.add(execute(s, text));
+    for (Object p : plans) {
+      out.add(execute(p, text));
     }
     return out;
   }
 
-  private ResultTable execute(Statement s, String text) {
-    try {
+  /**
+   * Parses and analyses without computing: names, regions and their weights, dates and units are
+   * resolved. Returns one opaque plan per statement, in order.
+   */
+  public List<Object> analyze(String text) {
+    Script script = QueryParser.parse(text);
+    SeriesPlanner planner = new SeriesPlanner(catalog, weights, text);
+    CatalogStatements cat = new CatalogStatements(catalog, text);
+    List<Object> plans = new ArrayList<>();
+    for (Statement s : script.statements()) {
       if (s instanceof AreaSeries a) {
-        return new AreaSeriesStatement(catalog, cache, weights, text).run(a);
+        plans.add(AreaSeriesStatement.analyze(a, planner));
+      } else if (s instanceof DescribeVariable d) {
+        cat.check(d);
+        plans.add(d);
+      } else if (s instanceof ListVariables || s instanceof ListRegions) {
+        plans.add(s);
+      } else {
+        throw new IllegalStateException("no analyser for " + s.getClass().getSimpleName());
+      }
+    }
+    return plans;
+  }
+
+  private ResultTable execute(Object plan, String text) {
+    try {
+      if (plan instanceof AreaSeriesStatement.Plan p) {
+        return AreaSeriesStatement.execute(p, cache, text);
       }
       CatalogStatements cat = new CatalogStatements(catalog, text);
-      if (s instanceof ListVariables) {
+      if (plan instanceof ListVariables) {
         return cat.listVariables();
       }
-      if (s instanceof DescribeVariable d) {
+      if (plan instanceof DescribeVariable d) {
         return cat.describe(d);
       }
-      if (s instanceof ListRegions) {
+      if (plan instanceof ListRegions) {
         return cat.listRegions();
       }
-      throw new IllegalStateException("no executor for " + s.getClass().getSimpleName());
+      throw new IllegalStateException("no executor for " + plan.getClass().getSimpleName());
     } catch (IOException e) {
       throw new UncheckedIOException("reading the data store failed: " + e.getMessage(), e);
     }
