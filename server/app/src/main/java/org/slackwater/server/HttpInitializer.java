@@ -3,6 +3,7 @@ package org.slackwater.server;
 import io.netty.channel.ChannelHandlerContext;
 import io.netty.channel.ChannelInitializer;
 import io.netty.channel.ChannelPipeline;
+import io.netty.channel.group.ChannelGroup;
 import io.netty.channel.socket.SocketChannel;
 import io.netty.handler.codec.http.FullHttpMessage;
 import io.netty.handler.codec.http.HttpMessage;
@@ -16,15 +17,18 @@ final class HttpInitializer extends ChannelInitializer<SocketChannel> {
   private final Endpoints endpoints;
   private final ServerConfig config;
   private final EventExecutorGroup workers;
+  private final ChannelGroup connections;
 
-  HttpInitializer(Endpoints endpoints, ServerConfig config, EventExecutorGroup workers) {
+  HttpInitializer(Endpoints endpoints, ServerConfig config, EventExecutorGroup workers, ChannelGroup connections) {
     this.endpoints = endpoints;
     this.config = config;
     this.workers = workers;
+    this.connections = connections;
   }
 
   @Override
   protected void initChannel(SocketChannel ch) {
+    connections.add(ch);
     ChannelPipeline p = ch.pipeline();
     p.addLast("codec", new HttpServerCodec());
     p.addLast("aggregate", new LimitedAggregator(config.maxBodyBytes()));

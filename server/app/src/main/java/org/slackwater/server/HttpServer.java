@@ -2,6 +2,9 @@ package org.slackwater.server;
 
 import io.netty.bootstrap.ServerBootstrap;
 import io.netty.channel.Channel;
+import io.netty.channel.group.ChannelGroup;
+import io.netty.channel.group.DefaultChannelGroup;
+import io.netty.util.concurrent.GlobalEventExecutor;
 import io.netty.channel.EventLoopGroup;
 import io.netty.channel.MultiThreadIoEventLoopGroup;
 import io.netty.channel.nio.NioIoHandler;
@@ -21,12 +24,14 @@ public final class HttpServer implements AutoCloseable {
   private final EventLoopGroup io = new MultiThreadIoEventLoopGroup(0, NioIoHandler.newFactory());
   private final EventExecutorGroup workers = new DefaultEventExecutorGroup(Math.max(2, Runtime.getRuntime().availableProcessors()));
   private final Channel channel;
+  /** Every open connection, so that closing waits for them before the executors go away. */
+  private final ChannelGroup connections = new DefaultChannelGroup(GlobalEventExecutor.INSTANCE);
 
   private HttpServer(Workspace workspace, ServerConfig config) throws InterruptedException {
     ServerBootstrap b = new ServerBootstrap()
         .group(boss, io)
         .channel(NioServerSocketChannel.class)
-        .childHandler(new HttpInitializer(new Endpoints(workspace, config), config, workers));
+        .childHandler(new HttpInitializer(new Endpoints(workspace, config), config, workers, connections));
     this.channel = b.bind(config.host(), config.port()).sync().channel();
   }
 
@@ -51,7 +56,8 @@ public final class HttpServer implements AutoCloseable {
   @Override
   public void close() {
     channel.close().awaitUninterruptibly();
-    // I/O loops first: they close open keep-alive connections, whose handlers still need the workers.
+    // Close open keep-alive connections while every executor still runs, then stop the executors.
+    connections.close().awaitUninterruptibly();
     boss.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
     io.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
     workers.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
