@@ -51,7 +51,7 @@ import org.slackwater.core.store.ChunkLayout;
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
 @Warmup(iterations = 2, time = 5)
 @Measurement(iterations = 5, time = 5)
-@Fork(value = 1, jvmArgsAppend = {"-Xmx12g", "--add-opens=java.base/java.nio=ALL-UNNAMED"})
+@Fork(value = 1, jvmArgsAppend = {"-Xmx12g", "--add-opens=java.base/java.nio=ALL-UNNAMED", "--add-opens=java.base/sun.nio.ch=ALL-UNNAMED", "--add-opens=java.base/java.lang=ALL-UNNAMED", "--add-opens=java.base/java.util=ALL-UNNAMED", "--add-opens=java.base/java.lang.invoke=ALL-UNNAMED"})
 public class AreaMeanBenchmark {
   static final int NY = 250, NX = 250;
 

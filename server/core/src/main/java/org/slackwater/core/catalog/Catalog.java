@@ -36,6 +36,13 @@ import org.slackwater.core.store.ChunkRecord;
 public final class Catalog implements AutoCloseable {
 
   private final Connection db;
+  /**
+   * What the database holds, read once and dropped on every write. This process is the catalog's
+   * only writer, so the cache cannot go stale; it keeps queries from re-reading cube descriptions
+   * and re-parsing region outlines on every statement.
+   */
+  private List<CubeEntry> cubeCache;
+  private List<Region> regionCache;
 
   private Catalog(Connection db) {
     this.db = db;
@@ -74,6 +81,13 @@ public final class Catalog implements AutoCloseable {
 
   /** Every published cube, by name. */
   public synchronized List<CubeEntry> cubes() {
+    if (cubeCache == null) {
+      cubeCache = List.copyOf(readCubes());
+    }
+    return cubeCache;
+  }
+
+  private List<CubeEntry> readCubes() {
     List<CubeEntry> out = new ArrayList<>();
     try (PreparedStatement ps = db.prepareStatement("SELECT * FROM cube ORDER BY name"); ResultSet rs = ps.executeQuery()) {
       while (rs.next()) {
@@ -86,14 +100,12 @@ public final class Catalog implements AutoCloseable {
   }
 
   public synchronized Optional<CubeEntry> cube(String name) {
-    try (PreparedStatement ps = db.prepareStatement("SELECT * FROM cube WHERE name = ?")) {
-      ps.setString(1, name);
-      try (ResultSet rs = ps.executeQuery()) {
-        return rs.next() ? Optional.of(entry(rs)) : Optional.empty();
+    for (CubeEntry c : cubes()) {
+      if (c.name().equals(name)) {
+        return Optional.of(c);
       }
-    } catch (SQLException e) {
-      throw new CatalogException("reading cube '" + name + "' failed: " + e.getMessage(), e);
     }
+    return Optional.empty();
   }
 
   /** The next version number for {@code name} (1 for a new cube). */
@@ -107,6 +119,7 @@ public final class Catalog implements AutoCloseable {
    * @return the version it replaced, if any (its files may now be deleted)
    */
   public synchronized Optional<Integer> publish(CubeEntry entry) {
+    cubeCache = null;
     try {
       db.setAutoCommit(false);
       Optional<Integer> previous = Optional.empty();
@@ -170,6 +183,7 @@ public final class Catalog implements AutoCloseable {
   /** Removes a cube from the catalog; returns the version it had, if any. */
   public synchronized Optional<Integer> remove(String name) {
     Optional<Integer> v = cube(name).map(CubeEntry::version);
+    cubeCache = null;
     try (PreparedStatement ps = db.prepareStatement("DELETE FROM cube WHERE name = ?")) {
       ps.setString(1, name);
       ps.executeUpdate();
@@ -189,6 +203,7 @@ public final class Catalog implements AutoCloseable {
   }
 
   public synchronized void putRegion(Region region) {
+    regionCache = null;
     try (PreparedStatement ps = db.prepareStatement("INSERT OR REPLACE INTO region VALUES (?,?,?,?)")) {
       ps.setString(1, region.name());
       ps.setString(2, region.kind());
@@ -202,6 +217,13 @@ public final class Catalog implements AutoCloseable {
 
   /** Every region, in name order, re-read from the stored GeoJSON. */
   public synchronized List<Region> regions() {
+    if (regionCache == null) {
+      regionCache = readRegions();
+    }
+    return regionCache;
+  }
+
+  private List<Region> readRegions() {
     Map<String, Region> out = new LinkedHashMap<>();
     try (PreparedStatement ps = db.prepareStatement("SELECT name, geojson FROM region ORDER BY name COLLATE NOCASE"); ResultSet rs = ps.executeQuery()) {
       while (rs.next()) {
@@ -214,6 +236,7 @@ public final class Catalog implements AutoCloseable {
   }
 
   public synchronized boolean removeRegion(String name) {
+    regionCache = null;
     try (PreparedStatement ps = db.prepareStatement("DELETE FROM region WHERE name = ?")) {
       ps.setString(1, name);
       return ps.executeUpdate() > 0;

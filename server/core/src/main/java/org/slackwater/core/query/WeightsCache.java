@@ -10,11 +10,12 @@ import org.slackwater.core.region.RegionWeights;
 
 /**
  * Region weights per (grid, region outline), least recently used out beyond a fixed number of
- * entries. The key is the outline itself (as WKT), so a region that is redefined under the same
- * name gets new weights; a new cube version on the same grid reuses them.
+ * entries. The key is the outline itself, so a region that is redefined under the same name gets
+ * new weights; a new cube version on the same grid reuses them.
  */
 public final class WeightsCache {
-  private record Key(LatLonGrid grid, String outline) {}
+  /** JTS geometries compare with equalsExact and hash by envelope, so equal outlines share weights. */
+  private record Key(LatLonGrid grid, Geometry outline) {}
 
   private final int capacity;
   private final Map<Key, CellWeights> map;
@@ -32,7 +33,7 @@ public final class WeightsCache {
   }
 
   public CellWeights get(LatLonGrid grid, Geometry region) {
-    Key key = new Key(Objects.requireNonNull(grid), region.toText());
+    Key key = new Key(Objects.requireNonNull(grid), region);
     synchronized (this) {
       CellWeights w = map.get(key);
       if (w != null) {
