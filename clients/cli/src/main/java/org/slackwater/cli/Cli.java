@@ -1,168 +1,137 @@
 package org.slackwater.cli;
 
-import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintStream;
-import java.net.ConnectException;
-import java.net.URI;
-import java.net.http.HttpClient;
-import java.net.http.HttpRequest;
-import java.net.http.HttpResponse;
+import java.io.PrintWriter;
+import java.net.URLEncoder;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.time.Duration;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.NoSuchFileException;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
 
 /**
  * The command-line client. Talks only HTTP to a Slackwater server, so it needs nothing but a JDK.
  *
- * <p>Exit codes: 0 success; 1 the server refused the request (the problem is printed); 2 the
- * query has an error (printed with its line, column and a caret); 3 the server cannot be reached;
- * 4 a local problem (file not readable, bad option).
+ * <p>Exit codes: 0 success; 1 the server refused the request (its problem detail is printed);
+ * 2 the query has an error (printed with its line, column, the line with a caret, and the hint);
+ * 3 the server cannot be reached; 4 a local problem (a file that cannot be read or written, a bad
+ * option). Everything but results goes to standard error, as {@code error: ...} lines; no stack
+ * traces.
+ *
+ * <p>Environment: {@code SLACKWATER_URL} the server (when {@code --server} is not given),
+ * {@code SLACKWATER_TOKEN} the admin token for {@code regions add} and {@code ingest}.
  */
 @Command(name = "slackwater-cli", mixinStandardHelpOptions = true, version = "Slackwater CLI 0.1.0",
     description = "Ask a Slackwater server questions about estuary data.",
-    subcommands = {Cli.Query.class, Cli.Cubes.class, Cli.Regions.class, Cli.Health.class},
+    subcommands = {QueryCommand.class, DescribeCommand.class, CubesCommand.class, RegionsCommand.class,
+        IngestCommand.class, HealthCommand.class, CommandLine.HelpCommand.class},
+    footerHeading = "%nEnvironment:%n",
+    footer = {"  SLACKWATER_URL    the server, when --server is not given",
+        "  SLACKWATER_TOKEN  admin token for 'regions add' and 'ingest'"},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {"0:success", "1:the server refused the request", "2:the query has an error",
         "3:the server cannot be reached", "4:local problem (file, option)"})
-public final class Cli implements Runnable {
-  static final int REFUSED = 1, QUERY_ERROR = 2, UNREACHABLE = 3, LOCAL = 4;
+public final class Cli implements Callable<Integer> {
+  static final int OK = 0, REFUSED = 1, QUERY_ERROR = 2, UNREACHABLE = 3, LOCAL = 4;
 
-  @Option(names = "--server", description = "Server URL (default: $SLACKWATER_URL or http://127.0.0.1:8080).", scope = CommandLine.ScopeType.INHERIT)
+  @Option(names = "--server", paramLabel = "URL", scope = CommandLine.ScopeType.INHERIT,
+      description = {"Server URL (default: $SLACKWATER_URL,", "else " + ServerConnection.DEFAULT_URL + ")."})
   String server;
 
+  InputStream in = System.in;
   PrintStream out = System.out;
   PrintStream err = System.err;
+  Map<String, String> env = Map.of();
 
   public static void main(String[] args) {
-    System.exit(run(args, System.out, System.err));
+    System.exit(run(args, System.in, System.out, System.err, System.getenv()));
   }
 
-  /** Runs the CLI with the given streams; returns the exit code. */
+  /** Runs the CLI with the process's standard input and environment; returns the exit code. */
   public static int run(String[] args, PrintStream out, PrintStream err) {
+    return run(args, System.in, out, err, System.getenv());
+  }
+
+  /** Runs the CLI with the given streams and environment variables; returns the exit code. */
+  public static int run(String[] args, InputStream in, PrintStream out, PrintStream err, Map<String, String> env) {
     Cli cli = new Cli();
+    cli.in = in;
     cli.out = out;
     cli.err = err;
+    cli.env = Map.copyOf(env);
     CommandLine cl = new CommandLine(cli);
-    cl.setOut(new java.io.PrintWriter(out, true));
-    cl.setErr(new java.io.PrintWriter(err, true));
-    cl.setExecutionExceptionHandler((ex, line, parsed) -> {
+    cl.setCaseInsensitiveEnumValuesAllowed(true);
+    cl.setOut(new PrintWriter(out, true));
+    cl.setErr(new PrintWriter(err, true));
+    cl.setParameterExceptionHandler((ex, arguments) -> {
       err.println("error: " + ex.getMessage());
+      err.println("see '" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help'");
       return LOCAL;
     });
-    return cl.execute(args);
+    cl.setExecutionExceptionHandler((ex, commandLine, parsed) -> {
+      if (ex instanceof CliFailure f) {
+        err.println("error: " + f.getMessage());
+        return f.exitCode();
+      }
+      err.println("error: " + describe(ex));
+      return LOCAL;
+    });
+    int code = cl.execute(args);
+    out.flush();
+    err.flush();
+    return code;
   }
 
+  /** Without a subcommand: the usage, on standard error, as for any other incomplete command line. */
   @Override
-  public void run() {
-    new CommandLine(this).usage(out);
+  public Integer call() {
+    new CommandLine(this).usage(err);
+    return LOCAL;
   }
 
-  URI base() {
-    String s = server != null ? server : System.getenv().getOrDefault("SLACKWATER_URL", "http://127.0.0.1:8080");
-    return URI.create(s.endsWith("/") ? s.substring(0, s.length() - 1) : s);
+  ServerConnection connection() throws CliFailure {
+    return ServerConnection.of(server, env);
   }
 
-  /** Sends a request; prints the body (or writes it to {@code outFile}) or the problem; returns the exit code. */
-  int send(HttpRequest.Builder req, Path outFile) {
-    HttpClient client = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(10)).build();
-    HttpResponse<InputStream> res;
-    try {
-      res = client.send(req.build(), HttpResponse.BodyHandlers.ofInputStream());
-    } catch (ConnectException e) {
-      err.println("error: cannot reach the server at " + base() + " (is it running? set --server or SLACKWATER_URL)");
-      return UNREACHABLE;
-    } catch (IOException e) {
-      err.println("error: talking to " + base() + " failed: " + e.getMessage());
-      return UNREACHABLE;
-    } catch (InterruptedException e) {
-      Thread.currentThread().interrupt();
-      return UNREACHABLE;
+  /** Prints a successful text answer, or the problem; returns the exit code. */
+  int show(Answer a) {
+    if (!a.ok()) {
+      return Problems.print(a.text(), a.status(), err);
     }
-    try (InputStream body = res.body()) {
-      if (res.statusCode() >= 400) {
-        return Problems.print(new String(body.readAllBytes(), StandardCharsets.UTF_8), res.statusCode(), err);
-      }
-      if (outFile != null) {
-        Files.copy(body, outFile, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        err.println("wrote " + outFile);
-      } else {
-        body.transferTo(out);
-        out.flush();
-      }
-      return 0;
-    } catch (IOException e) {
-      err.println("error: reading the answer failed: " + e.getMessage());
-      return UNREACHABLE;
-    }
+    String text = a.text();
+    out.print(text.endsWith("\n") || text.isEmpty() ? text : text + "\n");
+    out.flush();
+    return OK;
   }
 
-  @Command(name = "query", mixinStandardHelpOptions = true, description = "Run a query and print (or save) the result.")
-  static final class Query implements Callable<Integer> {
-    @CommandLine.ParentCommand Cli cli;
-
-    @Parameters(arity = "0..1", paramLabel = "TEXT", description = "The query text; '-' or nothing reads standard input.")
-    String text;
-
-    @Option(names = {"-f", "--file"}, description = "Read the query from a .swq file.")
-    Path file;
-
-    @Option(names = "--format", defaultValue = "csv", description = "csv or json (default ${DEFAULT-VALUE}).")
-    String format;
-
-    @Option(names = {"-o", "--out"}, description = "Write the result to this file instead of standard output.")
-    Path out;
-
-    @Override
-    public Integer call() throws IOException {
-      String q;
-      if (file != null) {
-        q = Files.readString(file);
-      } else if (text == null || text.equals("-")) {
-        q = new String(System.in.readAllBytes(), StandardCharsets.UTF_8);
-      } else {
-        q = text;
-      }
-      HttpRequest.Builder req = HttpRequest.newBuilder(cli.base().resolve("/api/query?format=" + format))
-          .header("Content-Type", "text/plain; charset=utf-8")
-          .POST(HttpRequest.BodyPublishers.ofString(q, StandardCharsets.UTF_8));
-      return cli.send(req, out);
+  /** Prints the problem of a refused admin request, with what to do about the token. */
+  int refusedAdmin(Answer a, ServerConnection c) {
+    int code = Problems.print(a.text(), a.status(), err);
+    if (a.status() == 401) {
+      err.println(c.hasToken()
+          ? "hint: " + ServerConnection.TOKEN_VARIABLE + " is not the server's admin token"
+          : "hint: set " + ServerConnection.TOKEN_VARIABLE + " to the server's admin token");
     }
+    return code;
   }
 
-  @Command(name = "cubes", mixinStandardHelpOptions = true, description = "List the cubes the server holds (JSON).")
-  static final class Cubes implements Callable<Integer> {
-    @CommandLine.ParentCommand Cli cli;
-
-    @Override
-    public Integer call() {
-      return cli.send(HttpRequest.newBuilder(cli.base().resolve("/api/cubes")).GET(), null);
-    }
+  /** A path segment, percent-encoded (RFC 3986: spaces as %20, not '+'). */
+  static String segment(String s) {
+    return URLEncoder.encode(s, StandardCharsets.UTF_8).replace("+", "%20");
   }
 
-  @Command(name = "regions", mixinStandardHelpOptions = true, description = "List the regions (GeoJSON).")
-  static final class Regions implements Callable<Integer> {
-    @CommandLine.ParentCommand Cli cli;
-
-    @Override
-    public Integer call() {
-      return cli.send(HttpRequest.newBuilder(cli.base().resolve("/api/regions")).GET(), null);
+  /** An exception in plain words, for messages. */
+  static String describe(Throwable e) {
+    if (e instanceof NoSuchFileException) {
+      return "no such file or folder";
     }
-  }
-
-  @Command(name = "health", mixinStandardHelpOptions = true, description = "Check that the server answers.")
-  static final class Health implements Callable<Integer> {
-    @CommandLine.ParentCommand Cli cli;
-
-    @Override
-    public Integer call() {
-      return cli.send(HttpRequest.newBuilder(cli.base().resolve("/api/health")).GET(), null);
+    if (e instanceof AccessDeniedException) {
+      return "permission denied";
     }
+    return e.getMessage() == null || e.getMessage().isBlank() ? e.getClass().getSimpleName() : e.getMessage();
   }
 }

@@ -1,74 +1,47 @@
 package org.slackwater.cli;
 
 import java.io.PrintStream;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import java.util.Optional;
 
 /**
- * Prints a problem-details answer (RFC 9457) for a person: "error: line L:C: detail", the excerpt
- * with its caret, and the hint. Reads the few fields it needs without a JSON library, so the CLI
- * stays a single small jar.
+ * Prints a problem-details answer (RFC 9457) for a person: {@code error: line L:C: detail}, the
+ * excerpt with its caret and the hint for a query error; {@code error: detail} otherwise. An answer
+ * that is not a problem document (a proxy's error page, say) is shown by status and a short start
+ * of its body.
+ *
+ * @see Cli exit codes: {@link Cli#QUERY_ERROR} for a problem with a line and column, {@link
+ *     Cli#REFUSED} for any other refusal
  */
 final class Problems {
+  private static final int MAX_SHOWN = 300;
+
   private Problems() {}
 
   static int print(String body, int status, PrintStream err) {
-    String detail = field(body, "detail");
-    String line = number(body, "line");
-    String column = number(body, "column");
-    if (detail == null) {
-      err.println("error: the server answered " + status + (body.isBlank() ? "" : ": " + body));
+    Optional<String> detail = FlatJson.string(body, "detail");
+    if (detail.isEmpty()) {
+      String shown = body.strip();
+      if (shown.length() > MAX_SHOWN) {
+        shown = shown.substring(0, MAX_SHOWN) + "...";
+      }
+      err.println("error: the server answered " + status + (shown.isEmpty() ? "" : ": " + shown));
       return Cli.REFUSED;
     }
-    if (line != null && column != null) {
-      err.println("error: line " + line + ":" + column + ": " + detail);
-      String excerpt = field(body, "excerpt");
-      if (excerpt != null) {
+    Optional<String> line = FlatJson.number(body, "line");
+    Optional<String> column = FlatJson.number(body, "column");
+    if (line.isPresent() && column.isPresent()) {
+      err.println("error: line " + line.get() + ":" + column.get() + ": " + detail.get());
+      FlatJson.string(body, "excerpt").filter(e -> !e.isEmpty()).ifPresent(excerpt -> {
+        // Indented as a block, so the caret line keeps its place under the offending column.
         for (String l : excerpt.split("\n")) {
           err.println("  " + l);
         }
-      }
-      String hint = field(body, "hint");
-      if (hint != null) {
-        err.println("hint: " + hint);
-      }
+      });
+      FlatJson.string(body, "hint").ifPresent(h -> err.println("hint: " + h));
       return Cli.QUERY_ERROR;
     }
-    err.println("error: " + detail);
+    err.println("error: " + detail.get());
+    FlatJson.string(body, "hint").ifPresent(h -> err.println("hint: " + h));
     return Cli.REFUSED;
-  }
-
-  /** A string member of a flat JSON object, unescaped. */
-  static String field(String json, String name) {
-    Matcher m = Pattern.compile("\"" + name + "\"\\s*:\\s*\"((?:[^\"\\\\]|\\\\.)*)\"").matcher(json);
-    return m.find() ? unescape(m.group(1)) : null;
-  }
-
-  private static String number(String json, String name) {
-    Matcher m = Pattern.compile("\"" + name + "\"\\s*:\\s*(\\d+)").matcher(json);
-    return m.find() ? m.group(1) : null;
-  }
-
-  private static String unescape(String s) {
-    StringBuilder b = new StringBuilder();
-    for (int i = 0; i < s.length(); i++) {
-      char c = s.charAt(i);
-      if (c != '\\' || i + 1 == s.length()) {
-        b.append(c);
-        continue;
-      }
-      char n = s.charAt(++i);
-      switch (n) {
-        case 'n' -> b.append('\n');
-        case 't' -> b.append('\t');
-        case 'r' -> b.append('\r');
-        case 'u' -> {
-          b.append((char) Integer.parseInt(s.substring(i + 1, i + 5), 16));
-          i += 4;
-        }
-        default -> b.append(n);
-      }
-    }
-    return b.toString();
   }
 }
