@@ -1,7 +1,6 @@
 package org.slackwater.core.analytics;
 
 import java.time.LocalDate;
-import java.time.temporal.IsoFields;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -53,7 +52,7 @@ public final class Climatology {
 
   public static Climatology of(StepSeries baseline, int dayWindow) {
     TemporalStep step = baseline.step();
-    int classes = classes(step);
+    int classes = PeriodOfYear.classCount(step);
     List<List<Double>> pools = new ArrayList<>();
     for (int c = 0; c < classes; c++) {
       pools.add(new ArrayList<>());
@@ -79,28 +78,9 @@ public final class Climatology {
     return new Climatology(step, sorted);
   }
 
-  /** The class of the period starting on {@code start}: 0-based. */
+  /** The class of the period starting on {@code start}: 0-based (see {@link PeriodOfYear}). */
   public static int classOf(TemporalStep step, LocalDate start) {
-    return switch (step) {
-      case DAY -> {
-        int doy = LocalDate.of(2001, start.getMonthValue(), start.getMonthValue() == 2 && start.getDayOfMonth() == 29 ? 28 : start.getDayOfMonth()).getDayOfYear();
-        yield doy - 1;
-      }
-      case WEEK -> Math.min(start.get(IsoFields.WEEK_OF_WEEK_BASED_YEAR), 52) - 1;
-      case MONTH -> start.getMonthValue() - 1;
-      case SEASON -> start.getMonthValue() == 12 ? 0 : start.getMonthValue() / 3;
-      case YEAR, WATER_YEAR -> 0;
-    };
-  }
-
-  private static int classes(TemporalStep step) {
-    return switch (step) {
-      case DAY -> 365;
-      case WEEK -> 52;
-      case MONTH -> 12;
-      case SEASON -> 4;
-      case YEAR, WATER_YEAR -> 1;
-    };
+    return PeriodOfYear.classOf(step, start);
   }
 
   public TemporalStep step() {

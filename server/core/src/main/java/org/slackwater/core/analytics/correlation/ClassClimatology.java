@@ -1,5 +1,6 @@
 package org.slackwater.core.analytics.correlation;
 
+import org.slackwater.core.analytics.PeriodOfYear;
 import java.util.Objects;
 import org.slackwater.core.analytics.TemporalStep;
 

@@ -1,5 +1,6 @@
 package org.slackwater.core.analytics.correlation;
 
+import org.slackwater.core.analytics.PeriodOfYear;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;

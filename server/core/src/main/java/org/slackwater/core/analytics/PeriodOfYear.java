@@ -1,8 +1,7 @@
-package org.slackwater.core.analytics.correlation;
+package org.slackwater.core.analytics;
 
 import java.time.LocalDate;
 import java.time.temporal.IsoFields;
-import org.slackwater.core.analytics.TemporalStep;
 
 /**
  * The period-of-year class of a date, 0-based, for climatologies.
