@@ -9,7 +9,11 @@ import org.slackwater.core.analytics.ChunkCache;
 import org.slackwater.core.catalog.Catalog;
 import org.slackwater.core.result.ResultTable;
 import org.slackwater.query.QueryParser;
+import org.slackwater.query.QueryException;
 import org.slackwater.query.ast.AreaSeries;
+import org.slackwater.query.ast.Correlation;
+import org.slackwater.query.ast.DriverRanking;
+import org.slackwater.query.ast.EventWindow;
 import org.slackwater.query.ast.DescribeVariable;
 import org.slackwater.query.ast.ListRegions;
 import org.slackwater.query.ast.ListVariables;
@@ -63,8 +67,15 @@ public final class QueryEngine {
         plans.add(d);
       } else if (s instanceof ListVariables || s instanceof ListRegions) {
         plans.add(s);
+      } else if (s instanceof Correlation c) {
+        plans.add(DriverStatements.analyze(c, planner));
+      } else if (s instanceof DriverRanking r) {
+        plans.add(DriverStatements.analyze(r, planner));
+      } else if (s instanceof EventWindow w) {
+        plans.add(DriverStatements.analyze(w, planner));
       } else {
-        throw new IllegalStateException("no analyser for " + s.getClass().getSimpleName());
+        throw QueryException.at(s, text, "this kind of statement is understood but not run by this server version yet",
+            "see 'Statements being built' in the language reference");
       }
     }
     return plans;
@@ -74,6 +85,15 @@ public final class QueryEngine {
     try {
       if (plan instanceof AreaSeriesStatement.Plan p) {
         return AreaSeriesStatement.execute(p, cache, text);
+      }
+      if (plan instanceof DriverStatements.CorrelationPlan p) {
+        return DriverStatements.execute(p, cache, text);
+      }
+      if (plan instanceof DriverStatements.RankingPlan p) {
+        return DriverStatements.execute(p, cache, text);
+      }
+      if (plan instanceof DriverStatements.WindowPlan p) {
+        return DriverStatements.execute(p, cache, text);
       }
       CatalogStatements cat = new CatalogStatements(catalog, text);
       if (plan instanceof ListVariables) {
