@@ -2,12 +2,32 @@ package org.slackwater.query;
 
 import java.time.LocalDate;
 import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import org.antlr.v4.runtime.ParserRuleContext;
 import org.antlr.v4.runtime.Token;
 import org.slackwater.query.ast.AreaSeries;
+import org.slackwater.query.ast.AstPositions;
+import org.slackwater.query.ast.ComparisonMap;
+import org.slackwater.query.ast.Correlation;
+import org.slackwater.query.ast.CorrelationMap;
+import org.slackwater.query.ast.CorrelationMethod;
+import org.slackwater.query.ast.DerivedVariable;
+import org.slackwater.query.ast.Deseasonalized;
+import org.slackwater.query.ast.DifferenceMap;
+import org.slackwater.query.ast.DriverRanking;
+import org.slackwater.query.ast.Duration;
+import org.slackwater.query.ast.EventWindow;
+import org.slackwater.query.ast.LagRange;
+import org.slackwater.query.ast.SeriesTerm;
+import org.slackwater.query.ast.Severity;
+import org.slackwater.query.ast.StatisticMap;
+import org.slackwater.query.ast.Watch;
+import org.slackwater.query.ast.WatchRule;
 import org.slackwater.query.ast.BoxRegion;
 import org.slackwater.query.ast.CircleRegion;
 import org.slackwater.query.ast.ClippedRegion;
@@ -16,6 +36,7 @@ import org.slackwater.query.ast.ComparisonKind;
 import org.slackwater.query.ast.Coordinate;
 import org.slackwater.query.ast.Coverage;
 import org.slackwater.query.ast.DescribeVariable;
+import org.slackwater.query.ast.Expression;
 import org.slackwater.query.ast.Identifier;
 import org.slackwater.query.ast.ListRegions;
 import org.slackwater.query.ast.ListVariables;
@@ -39,20 +60,32 @@ import org.slackwater.query.parser.SlackwaterParser;
 
 /**
  * Builds the AST from a parse tree, one method per labelled alternative, and checks the values
- * the grammar leaves open (dates, ranges, percentiles, units of distance), each failure a
- * {@link QueryException} at the offending token.
+ * the grammar leaves open (dates, ranges, percentiles, units of distance, lags, correlation
+ * methods, severities, repeated drivers or events, names defined twice by {@code let}), each
+ * failure a {@link QueryException} at the offending token. Watch conditions and {@code let}
+ * expressions are built by {@link ConditionBuilder} and {@link ExpressionBuilder}. One builder
+ * serves one query text.
  */
 final class AstBuilder extends SlackwaterBaseVisitor<Node> {
 
     /** Half the Earth's circumference is about 20,000 km; a larger radius means nothing more. */
     static final double MAX_RADIUS_KM = 20_000;
+    /** Longest series text quoted in a message: room for a variable and a region name. */
+    private static final int SERIES_SHOWN = 80;
+
+    private static final Map<String, CorrelationMethod> METHODS = words(CorrelationMethod.values());
+    private static final Map<String, Severity> SEVERITIES = words(Severity.values());
 
     private final String source;
     private final Coordinates coordinates;
+    private final Durations durations;
+    /** Names defined by the query's 'let' statements so far, with where they were defined. */
+    private final Map<String, Position> defined = new HashMap<>();
 
     AstBuilder(String source) {
         this.source = source;
         this.coordinates = new Coordinates(source);
+        this.durations = new Durations(source);
     }
 
     // ---- statements -----------------------------------------------------------------------
@@ -91,6 +124,244 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
     @Override
     public DescribeVariable visitDescribeVariable(SlackwaterParser.DescribeVariableContext ctx) {
         return new DescribeVariable(visitVariable(ctx.variable()), position(ctx));
+    }
+
+    @Override
+    public Correlation visitCorrelation(SlackwaterParser.CorrelationContext ctx) {
+        return new Correlation(
+                seriesTerm(ctx.seriesTerm(0)),
+                seriesTerm(ctx.seriesTerm(1)),
+                visitRegion(ctx.region()),
+                (Period) visit(ctx.period()),
+                (Step) visit(ctx.step().stepUnit()),
+                lags(ctx.lagClause()),
+                method(ctx.methodClause()),
+                Optional.ofNullable(ctx.deseasonalizeClause()).map(this::deseasonalized),
+                Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
+                position(ctx));
+    }
+
+    @Override
+    public DriverRanking visitDriverRanking(SlackwaterParser.DriverRankingContext ctx) {
+        List<SlackwaterParser.SeriesTermContext> terms = ctx.seriesTerm();
+        SeriesTerm series = seriesTerm(terms.get(0));
+        List<SlackwaterParser.SeriesTermContext> driverContexts = terms.subList(1, terms.size());
+        List<SeriesTerm> drivers = seriesTerms(driverContexts);
+        RegionRef region = visitRegion(ctx.region());
+        requireDistinct(Optional.of(series), drivers, driverContexts, region, "driver");
+        return new DriverRanking(series, drivers,
+                region,
+                (Period) visit(ctx.period()),
+                (Step) visit(ctx.step().stepUnit()),
+                lags(ctx.lagClause()),
+                method(ctx.methodClause()),
+                Optional.ofNullable(ctx.baselineClause()).map(b -> visitBaseline(b.baseline())),
+                Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
+                position(ctx));
+    }
+
+    @Override
+    public EventWindow visitEventWindow(SlackwaterParser.EventWindowContext ctx) {
+        Map<LocalDate, PartialDate> events = new LinkedHashMap<>();
+        for (SlackwaterParser.DateContext date : ctx.date()) {
+            Token token = date.getStart();
+            PartialDate event = DateLiterals.read(token, source);
+            if (!event.hasDay()) {
+                throw error(token, "an event is one day, found '" + token.getText() + "'",
+                        "write the event's date as YYYY-MM-DD, e.g. 2014-06-20");
+            }
+            if (events.putIfAbsent(event.first(), event) != null) {
+                throw error(token, "the event " + event.text() + " is listed twice", "");
+            }
+        }
+        Duration length = durations.positive(ctx.duration(), "window");
+        List<SeriesTerm> drivers = seriesTerms(ctx.seriesTerm());
+        RegionRef region = visitRegion(ctx.region());
+        requireDistinct(Optional.empty(), drivers, ctx.seriesTerm(), region, "variable");
+        return new EventWindow(
+                length,
+                List.copyOf(events.values()),
+                drivers,
+                region,
+                Optional.ofNullable(ctx.baselineClause()).map(b -> visitBaseline(b.baseline())),
+                Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
+                position(ctx));
+    }
+
+    @Override
+    public Statement visitMap(SlackwaterParser.MapContext ctx) {
+        return (Statement) visit(ctx.mapSpec());
+    }
+
+    /** One alternative, three statements: a plain map, a difference ('minus') or a comparison ('as'). */
+    @Override
+    public Statement visitStatisticMap(SlackwaterParser.StatisticMapContext ctx) {
+        Position position = position(ctx.getParent());
+        SeriesTerm values = mapTerm(ctx.mapTerm());
+        RegionRef region = visitRegion(ctx.region());
+        Period period = (Period) visit(ctx.period());
+        Optional<UnitRef> unit = Optional.ofNullable(ctx.unitClause()).map(this::visitUnitClause);
+        if (ctx.differenceClause() != null && ctx.comparisonClause() != null) {
+            throw error(ctx.comparisonClause().getStart(),
+                    "a map is either a difference ('minus') or a comparison ('as'), not both",
+                    "make two maps, one with 'minus <period>' and one with 'as ...'");
+        }
+        if (ctx.differenceClause() != null) {
+            Period reference = visitBaseline(ctx.differenceClause().baseline());
+            return new DifferenceMap(values, region, period, reference, unit, position);
+        }
+        if (ctx.comparisonClause() != null) {
+            return new ComparisonMap(values, region, period, unit, visitComparisonClause(ctx.comparisonClause()),
+                    position);
+        }
+        return new StatisticMap(values, region, period, unit, position);
+    }
+
+    @Override
+    public CorrelationMap visitCorrelationMap(SlackwaterParser.CorrelationMapContext ctx) {
+        return new CorrelationMap(
+                mapTerm(ctx.mapTerm(0)),
+                visitRegion(ctx.region(0)),
+                mapTerm(ctx.mapTerm(1)),
+                visitRegion(ctx.region(1)),
+                (Period) visit(ctx.period()),
+                (Step) visit(ctx.step().stepUnit()),
+                Optional.ofNullable(ctx.singleLag()).map(durations::singleLag),
+                method(ctx.methodClause()),
+                Optional.ofNullable(ctx.deseasonalizeClause()).map(this::deseasonalized),
+                position(ctx.getParent()));
+    }
+
+    @Override
+    public Watch visitWatch(SlackwaterParser.WatchContext ctx) {
+        Token name = ctx.STRING().getSymbol();
+        String text = Literals.unquote(name, source);
+        if (text.isBlank()) {
+            throw error(name, "the watch name is empty", "name the watch, e.g. watch \"North Intake bloom\"");
+        }
+        RegionRef region = visitRegion(ctx.region());
+        ConditionBuilder conditions = new ConditionBuilder(this, durations, source);
+        List<WatchRule> rules = new ArrayList<>();
+        for (SlackwaterParser.WatchRuleContext rule : ctx.watchRule()) {
+            Severity severity = rule.identifier() == null ? Severity.WARNING
+                    : choice(rule.identifier().getStart(), "severity", SEVERITIES);
+            rules.add(new WatchRule(conditions.visit(rule.condition()), severity, position(rule)));
+        }
+        return new Watch(text, region, rules, position(ctx));
+    }
+
+    @Override
+    public DerivedVariable visitDerivedVariable(SlackwaterParser.DerivedVariableContext ctx) {
+        Identifier name = visitVariable(ctx.variable());
+        Position earlier = defined.get(name.name());
+        if (earlier != null) {
+            throw error(ctx.variable().getStart(), "'" + name.name() + "' is already defined on line " + earlier.line(),
+                    "give the new variable another name");
+        }
+        Expression expression = new ExpressionBuilder(source, name).visit(ctx.expression());
+        defined.put(name.name(), name.position());
+        return new DerivedVariable(name, expression,
+                Optional.ofNullable(ctx.unitClause()).map(this::visitUnitClause), position(ctx));
+    }
+
+    // ---- parts of the statements beyond the area series -----------------------------------
+
+    /** A series term; without a statistic, mean, placed at the variable; without 'within', no region of its own. */
+    SeriesTerm seriesTerm(SlackwaterParser.SeriesTermContext ctx) {
+        Identifier variable = visitVariable(ctx.variable());
+        Statistic statistic = statisticOrMean(ctx.statistic(), variable);
+        Optional<RegionRef> region = Optional.ofNullable(ctx.withinClause()).map(w -> visitRegion(w.region()));
+        return new SeriesTerm(statistic, variable, region, position(ctx));
+    }
+
+    /** The series of a map, which takes its region from 'over' (the grammar has no 'within' there). */
+    private SeriesTerm mapTerm(SlackwaterParser.MapTermContext ctx) {
+        Identifier variable = visitVariable(ctx.variable());
+        return new SeriesTerm(statisticOrMean(ctx.statistic(), variable), variable, Optional.empty(), position(ctx));
+    }
+
+    private List<SeriesTerm> seriesTerms(List<SlackwaterParser.SeriesTermContext> contexts) {
+        List<SeriesTerm> terms = new ArrayList<>();
+        for (SlackwaterParser.SeriesTermContext ctx : contexts) {
+            terms.add(seriesTerm(ctx));
+        }
+        return terms;
+    }
+
+    Statistic statisticOrMean(SlackwaterParser.StatisticContext ctx, Identifier variable) {
+        return ctx == null ? Statistic.of(StatisticKind.MEAN, variable.position()) : (Statistic) visit(ctx);
+    }
+
+    /**
+     * Series that must all differ, and differ from the series being explained when there is one,
+     * once each is placed in the statement's region: the same variable within two regions is two
+     * series, {@code rainfall} and {@code rainfall within <the statement's region>} one. The error
+     * is at the first term, in text order, that repeats another; {@code what} names one in the
+     * message.
+     */
+    private void requireDistinct(Optional<SeriesTerm> explained, List<SeriesTerm> terms,
+            List<SlackwaterParser.SeriesTermContext> contexts, RegionRef statementRegion, String what) {
+        for (int i = 0; i < terms.size(); i++) {
+            SeriesTerm term = terms.get(i);
+            if (explained.isPresent() && term.sameSeries(explained.get(), statementRegion)) {
+                throw error(contexts.get(i).getStart(), describe(term)
+                        + " is the series being explained; it cannot be its own driver",
+                        "list only the other series after 'among'; the same variable within another region may be"
+                                + " a driver");
+            }
+            for (int j = 0; j < i; j++) {
+                SeriesTerm earlier = terms.get(j);
+                if (term.sameSeries(earlier, statementRegion)) {
+                    boolean sameText = AstPositions.erase(term).equals(AstPositions.erase(earlier));
+                    throw error(contexts.get(i).getStart(), "the " + what + " " + describe(term) + " is listed twice",
+                            sameText ? "" : "a series without 'within' is taken over the statement's region "
+                                    + QueryPrinter.print(statementRegion) + "; list it once");
+                }
+            }
+        }
+    }
+
+    /** A series as written (its region included), quoted for a message. */
+    private static String describe(SeriesTerm term) {
+        return SyntaxErrors.quote(QueryPrinter.series(term), SERIES_SHOWN);
+    }
+
+    private Optional<LagRange> lags(SlackwaterParser.LagClauseContext ctx) {
+        if (ctx == null) {
+            return Optional.empty();
+        }
+        return Optional.of(ctx.lagRange() != null ? durations.range(ctx.lagRange())
+                : durations.singleLagRange(ctx.singleLag()));
+    }
+
+    private CorrelationMethod method(SlackwaterParser.MethodClauseContext ctx) {
+        return ctx == null ? CorrelationMethod.PEARSON : choice(ctx.identifier().getStart(), "correlation method", METHODS);
+    }
+
+    private Deseasonalized deseasonalized(SlackwaterParser.DeseasonalizeClauseContext ctx) {
+        return new Deseasonalized(Optional.ofNullable(ctx.baselineClause()).map(b -> visitBaseline(b.baseline())),
+                position(ctx));
+    }
+
+    /** The enum constant named by a word (any case), or an error listing the words there are. */
+    private <E extends Enum<E>> E choice(Token word, String what, Map<String, E> words) {
+        E value = words.get(word.getText().toLowerCase(Locale.ROOT));
+        if (value != null) {
+            return value;
+        }
+        List<String> names = new ArrayList<>(words.keySet());
+        String hint = Suggestions.nearest(word.getText(), names).map(n -> "did you mean '" + n + "'?")
+                .orElse("use " + String.join(", ", names.subList(0, names.size() - 1)) + " or " + names.get(names.size() - 1));
+        throw error(word, "unknown " + what + " " + SyntaxErrors.quote(word.getText()), hint);
+    }
+
+    /** Lower-case names of enum constants, in declaration order. */
+    private static <E extends Enum<E>> Map<String, E> words(E[] values) {
+        Map<String, E> words = new LinkedHashMap<>();
+        for (E value : values) {
+            words.put(value.name().toLowerCase(Locale.ROOT), value);
+        }
+        return words;
     }
 
     // ---- statistic and variable -----------------------------------------------------------
@@ -298,24 +569,22 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
 
     @Override
     public UnitRef visitUnitClause(SlackwaterParser.UnitClauseContext ctx) {
-        Token token = ctx.getStop();
-        String unit = token.getType() == SlackwaterParser.STRING ? Literals.unquote(token, source) : token.getText();
-        if (unit.isBlank()) {
-            throw error(token, "the unit is empty", "write a unit such as degC, mm/day or \"mg m-3\"");
+        return Units.read(ctx.getStop(), position(ctx), source);
+    }
+
+    static ComparisonKind comparisonKind(SlackwaterParser.ComparisonKindContext ctx) {
+        if (ctx instanceof SlackwaterParser.AnomalyComparisonContext) {
+            return ComparisonKind.ANOMALY;
         }
-        return new UnitRef(unit, position(ctx));
+        if (ctx instanceof SlackwaterParser.StandardizedAnomalyComparisonContext) {
+            return ComparisonKind.STANDARDIZED_ANOMALY;
+        }
+        return ComparisonKind.PERCENTILE_RANK;
     }
 
     @Override
     public Comparison visitComparisonClause(SlackwaterParser.ComparisonClauseContext ctx) {
-        ComparisonKind kind;
-        if (ctx.comparisonKind() instanceof SlackwaterParser.AnomalyComparisonContext) {
-            kind = ComparisonKind.ANOMALY;
-        } else if (ctx.comparisonKind() instanceof SlackwaterParser.StandardizedAnomalyComparisonContext) {
-            kind = ComparisonKind.STANDARDIZED_ANOMALY;
-        } else {
-            kind = ComparisonKind.PERCENTILE_RANK;
-        }
+        ComparisonKind kind = comparisonKind(ctx.comparisonKind());
         Optional<Period> baseline = Optional.ofNullable(ctx.baseline()).map(this::visitBaseline);
         return new Comparison(kind, baseline, position(ctx));
     }
@@ -337,6 +606,6 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
     }
 
     private QueryException error(Token token, String message, String hint) {
-        return new QueryException(message, token.getLine(), token.getCharPositionInLine() + 1, source, hint);
+        return Literals.error(token, source, message, hint);
     }
 }

@@ -16,6 +16,11 @@ final class Literals {
         return new Position(token.getLine(), token.getCharPositionInLine() + 1);
     }
 
+    /** A query error at {@code token}. */
+    static QueryException error(Token token, String source, String message, String hint) {
+        return new QueryException(message, token.getLine(), token.getCharPositionInLine() + 1, source, hint);
+    }
+
     /** The value of a NUMBER token; very long numbers become infinite and fail range checks. */
     static double number(Token token) {
         return Double.parseDouble(token.getText()) + 0.0;

@@ -17,10 +17,12 @@ import org.slackwater.query.parser.SlackwaterParser;
  *
  * <p>Every failure is a {@link QueryException} with a 1-based line and column: characters the
  * language does not use, unterminated strings, syntax errors (the first one only, with the
- * expected words), and bad values (dates, coordinates, percentiles, radii, coverage). Input is
+ * expected words), and bad values (dates, coordinates, percentiles, radii, coverage, lags,
+ * durations, thresholds, repeated names). Input is
  * bounded before parsing so that no input can exhaust the stack: at most {@link #MAX_LENGTH}
- * characters, {@link #MAX_NESTING} levels of parentheses and {@link #MAX_CLIPS} uses of
- * {@code clipped to} in one statement. The parser keeps no state; it is safe to call from
+ * characters, {@link #MAX_NESTING} levels of parentheses, {@link #MAX_CLIPS} uses of
+ * {@code clipped to} in one statement and {@link #MAX_OPERATORS} operators in one {@code let};
+ * {@code not} and unary minus take a single operand each, never a chain of their own. The parser keeps no state; it is safe to call from
  * several threads.
  */
 public final class QueryParser {
@@ -31,6 +33,8 @@ public final class QueryParser {
     public static final int MAX_NESTING = 32;
     /** The most {@code clipped to} accepted in one statement. */
     public static final int MAX_CLIPS = 64;
+    /** The most arithmetic operators (+ - * /, unary minus included) accepted in one {@code let}. */
+    public static final int MAX_OPERATORS = 128;
 
     private QueryParser() {}
 

@@ -19,13 +19,19 @@ import org.slackwater.query.ast.Script;
 class FuzzTest {
 
     private static final int INPUTS = 20_000;
-    private static final String ALPHABET = "abcdefghijklmnopqrstuvwxyz NSEW019.-,;()\"\\#%/\n\t"
+    private static final String ALPHABET = "abcdefghijklmnopqrstuvwxyz NSEW019.-,;()\"\\#%/+*=\n\t"
             + "\u00e9\u201C\u0000\uFEFF\uD83C\uDF0A\uD800";
     private static final List<String> FRAGMENTS = List.of("mean ", "p90 ", "chlorophyll ", "over ", "\"Outer Bay\" ",
             "circle(", "box(", "wkt ", "44.1 N", ", ", "31.2 W", "3 km", ")", " clipped to ", "from ", "during ",
             "2014", "-07", "-31", " to ", " by ", "water year", "month", " in ", "mg/m3", " as ", "standardized ",
             "anomaly", " against ", " with coverage at least ", "60 %", ";", "list ", "variables", "describe ",
-            "(", "#c\n", "1" + "0".repeat(330), "99999999999999999999999999", "p100", "\"", "\u00e9");
+            "(", "#c\n", "1" + "0".repeat(330), "99999999999999999999999999", "p100", "\"", "\u00e9",
+            // the statements being built
+            "correlate ", " with ", "lags ", "-4", "12 ", "weeks", " step ", "at lag ", "using spearman",
+            " deseasonalized", " as anomalies", "rank drivers of ", " among ", "window ", "60 days", " before ",
+            "2014-06-20", " of ", "map ", "correlation ", " minus ", "watch ", " when ", " above ", " below ",
+            "at least ", "at most ", " for ", "3 days", " and ", " or ", "not ", " severity alert", "let ", "x", " = ", " within ", "\"Harle Watershed\"",
+            " + ", " - ", " * ", " / ", "10-3", "25 degC", "10 mg/m3");
 
     @Test
     void randomAndMutatedInputsFailOnlyWithPositionedQueryErrors() {
@@ -115,8 +121,20 @@ class FuzzTest {
     }
 
     private static String deepNesting(Random random) {
-        // Around and beyond the limits; far deeper inputs are tested once each in SyntaxErrorTest.
+        // Around and beyond the limits; far deeper inputs are tested once each in SyntaxErrorTest
+        // and LanguageV1ErrorTest.
         int depth = random.nextInt(3) == 0 ? 20 + random.nextInt(20) : 40 + random.nextInt(400);
+        switch (random.nextInt(6)) {
+            case 0:
+                return "let x = " + "-(".repeat(depth) + "a" + ")".repeat(random.nextInt(depth + 1));
+            case 1:
+                return "let x = a" + " - a".repeat(depth / 2 + random.nextInt(depth));
+            case 2:
+                return "watch \"w\" over \"North Intake\" when " + "not (".repeat(depth) + "a above 1"
+                        + ")".repeat(random.nextInt(depth + 1));
+            default:
+                break;
+        }
         if (random.nextBoolean()) {
             return "mean chlorophyll over " + "(".repeat(depth) + "\"Outer Bay\"" + ")".repeat(random.nextInt(depth + 1))
                     + " during 2014 by month";

@@ -1,9 +1,44 @@
 package org.slackwater.query;
 
+import java.util.ArrayList;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Optional;
 import java.util.Random;
+import java.util.Set;
+import org.slackwater.query.ast.AllOf;
+import org.slackwater.query.ast.AnyOf;
 import org.slackwater.query.ast.AreaSeries;
+import org.slackwater.query.ast.ArithmeticOperator;
+import org.slackwater.query.ast.BinaryOp;
+import org.slackwater.query.ast.ComparisonCondition;
+import org.slackwater.query.ast.ComparisonMap;
+import org.slackwater.query.ast.Condition;
+import org.slackwater.query.ast.Correlation;
+import org.slackwater.query.ast.CorrelationMap;
+import org.slackwater.query.ast.CorrelationMethod;
+import org.slackwater.query.ast.DerivedVariable;
+import org.slackwater.query.ast.Deseasonalized;
+import org.slackwater.query.ast.DifferenceMap;
+import org.slackwater.query.ast.DriverRanking;
+import org.slackwater.query.ast.Duration;
+import org.slackwater.query.ast.DurationUnit;
+import org.slackwater.query.ast.EventWindow;
+import org.slackwater.query.ast.Expression;
+import org.slackwater.query.ast.LagRange;
+import org.slackwater.query.ast.Negate;
+import org.slackwater.query.ast.Not;
+import org.slackwater.query.ast.NumberLiteral;
+import org.slackwater.query.ast.SeriesTerm;
+import org.slackwater.query.ast.Severity;
+import org.slackwater.query.ast.StatisticMap;
+import org.slackwater.query.ast.Threshold;
+import org.slackwater.query.ast.ThresholdCondition;
+import org.slackwater.query.ast.ThresholdOperator;
+import org.slackwater.query.ast.VariableRef;
+import org.slackwater.query.ast.Watch;
+import org.slackwater.query.ast.WatchRule;
+import org.slackwater.query.ast.WatchSeries;
 import org.slackwater.query.ast.BoxRegion;
 import org.slackwater.query.ast.CircleRegion;
 import org.slackwater.query.ast.ClippedRegion;
@@ -29,7 +64,11 @@ import org.slackwater.query.ast.StepKind;
 import org.slackwater.query.ast.UnitRef;
 import org.slackwater.query.ast.WktRegion;
 
-/** Random valid statements (trees without positions) for round-trip and fuzz tests. */
+/**
+ * Random valid statements (trees without positions) for round-trip and fuzz tests: every kind
+ * of statement, with the values the parser can produce (distinct drivers and events, whole
+ * lags, no unit on standardized anomalies and percentile ranks, let names that cannot collide).
+ */
 final class RandomTrees {
 
     static final List<String> VARIABLES =
@@ -47,24 +86,218 @@ final class RandomTrees {
     }
 
     Statement statement() {
-        switch (random.nextInt(8)) {
+        switch (random.nextInt(16)) {
             case 0:
                 return new ListVariables(NONE);
             case 1:
                 return new ListRegions(NONE);
             case 2:
                 return new DescribeVariable(variable(), NONE);
+            case 3:
+                return correlation();
+            case 4:
+                return driverRanking();
+            case 5:
+                return eventWindow();
+            case 6:
+                return map();
+            case 7:
+                return correlationMap();
+            case 8:
+                return watch();
+            case 9:
+                return derivedVariable();
             default:
                 return areaSeries();
         }
     }
 
+    // ---- the statements being built ---------------------------------------------------------
+
+    Correlation correlation() {
+        return new Correlation(regionalSeries(), regionalSeries(), region(2), period(), step(), maybe(this::lags),
+                pick(CorrelationMethod.values()), maybe(this::deseasonalized), maybe(this::coverage), NONE);
+    }
+
+    DriverRanking driverRanking() {
+        RegionRef region = region(2);
+        List<SeriesTerm> all = distinctSeries(2 + random.nextInt(4), region);
+        return new DriverRanking(all.get(0), all.subList(1, all.size()), region, period(), step(), maybe(this::lags),
+                pick(CorrelationMethod.values()), maybe(this::period), maybe(this::coverage), NONE);
+    }
+
+    EventWindow eventWindow() {
+        Set<java.time.LocalDate> days = new LinkedHashSet<>();
+        List<PartialDate> events = new ArrayList<>();
+        for (int n = 1 + random.nextInt(3); n > 0; n--) {
+            PartialDate day = day();
+            if (days.add(day.first())) {
+                events.add(day);
+            }
+        }
+        RegionRef region = region(2);
+        return new EventWindow(duration(1, 120, DurationUnit.values()), events,
+                distinctSeries(1 + random.nextInt(4), region), region, maybe(this::period), maybe(this::coverage), NONE);
+    }
+
+    Statement map() {
+        SeriesTerm values = series();
+        RegionRef region = region(2);
+        Period period = period();
+        Optional<UnitRef> unit = maybe(() -> new UnitRef(pick(UNITS), NONE));
+        switch (random.nextInt(3)) {
+            case 0:
+                return new StatisticMap(values, region, period, unit, NONE);
+            case 1:
+                return new DifferenceMap(values, region, period, period(), unit, NONE);
+            default:
+                return new ComparisonMap(values, region, period, unit,
+                        new Comparison(pick(ComparisonKind.values()), maybe(this::period), NONE), NONE);
+        }
+    }
+
+    CorrelationMap correlationMap() {
+        return new CorrelationMap(series(), region(2), series(), region(2), period(), step(),
+                maybe(() -> duration(-20, 20, DurationUnit.values())), pick(CorrelationMethod.values()),
+                maybe(this::deseasonalized), NONE);
+    }
+
+    Watch watch() {
+        List<WatchRule> rules = new ArrayList<>();
+        for (int n = 1 + random.nextInt(3); n > 0; n--) {
+            rules.add(new WatchRule(condition(3), pick(Severity.values()), NONE));
+        }
+        return new Watch(pick(REGIONS), region(2), rules, NONE);
+    }
+
+    /** A random name for a let: 'd' and six characters, so that two in one script do not collide. */
+    DerivedVariable derivedVariable() {
+        StringBuilder name = new StringBuilder("d");
+        for (int i = 0; i < 6; i++) {
+            name.append("abcdefghijklmnopqrstuvwxyz0123456789_".charAt(random.nextInt(37)));
+        }
+        return new DerivedVariable(new Identifier(name.toString(), NONE), expression(4),
+                maybe(() -> new UnitRef(pick(UNITS), NONE)), NONE);
+    }
+
+    Condition condition(int depth) {
+        switch (random.nextInt(depth > 0 ? 6 : 2)) {
+            case 0:
+                return new ThresholdCondition(watchSeries(), threshold(true, false), maybe(this::daysOrWeeks), NONE);
+            case 1:
+                ComparisonKind kind = pick(ComparisonKind.values());
+                return new ComparisonCondition(kind, watchSeries(),
+                        threshold(kind == ComparisonKind.ANOMALY, kind == ComparisonKind.PERCENTILE_RANK),
+                        maybe(this::period), maybe(this::daysOrWeeks), NONE);
+            case 2:
+                return new AnyOf(conditions(depth - 1), NONE);
+            case 3:
+                return new AllOf(conditions(depth - 1), NONE);
+            case 4:
+                return new Not(condition(depth - 1), NONE);
+            default:
+                return condition(0);
+        }
+    }
+
+    private List<Condition> conditions(int depth) {
+        List<Condition> operands = new ArrayList<>();
+        for (int n = 2 + random.nextInt(2); n > 0; n--) {
+            operands.add(condition(depth));
+        }
+        return operands;
+    }
+
+    WatchSeries watchSeries() {
+        return new WatchSeries(statistic(), variable(), maybe(() -> region(1)), maybe(this::daysOrWeeks), NONE);
+    }
+
+    Threshold threshold(boolean unit, boolean percentile) {
+        double value = percentile ? random.nextInt(101) : random.nextBoolean() ? random.nextInt(50) - 10
+                : (random.nextDouble() - 0.3) * 100;
+        return new Threshold(pick(ThresholdOperator.values()), value,
+                unit ? maybe(() -> new UnitRef(pick(UNITS), NONE)) : Optional.empty(), NONE);
+    }
+
+    Expression expression(int depth) {
+        switch (random.nextInt(depth > 0 ? 5 : 2)) {
+            case 0:
+                return new VariableRef(variable(), NONE);
+            case 1:
+                double value = random.nextBoolean() ? random.nextInt(100) : random.nextDouble() * 10;
+                return new NumberLiteral(value, maybe(() -> new UnitRef(pick(UNITS), NONE)), NONE);
+            case 2:
+                return new Negate(expression(depth - 1), NONE);
+            default:
+                return new BinaryOp(expression(depth - 1), pick(ArithmeticOperator.values()), expression(depth - 1), NONE);
+        }
+    }
+
+    /** A series of a map: no region of its own. */
+    SeriesTerm series() {
+        return new SeriesTerm(statistic(), variable(), Optional.empty(), NONE);
+    }
+
+    /**
+     * A series of correlate, rank drivers or window: half of them with a region of their own,
+     * and then often a named one, so that one variable within two regions comes up.
+     */
+    SeriesTerm regionalSeries() {
+        Optional<RegionRef> region = maybe(() -> random.nextBoolean() ? new NamedRegion(pick(REGIONS), NONE) : region(1));
+        return new SeriesTerm(statistic(), variable(), region, NONE);
+    }
+
+    /** Series that differ once placed in the statement's region, as the parser requires. */
+    private List<SeriesTerm> distinctSeries(int count, RegionRef statementRegion) {
+        List<SeriesTerm> terms = new ArrayList<>();
+        while (terms.size() < count) {
+            SeriesTerm term = regionalSeries();
+            if (terms.stream().noneMatch(t -> t.sameSeries(term, statementRegion))) {
+                terms.add(term);
+            }
+        }
+        return terms;
+    }
+
+    Step step() {
+        return new Step(pick(StepKind.values()), NONE);
+    }
+
+    LagRange lags() {
+        int first = random.nextInt(30) - 10;
+        int last = random.nextBoolean() ? first : first + random.nextInt(30);
+        int step = random.nextBoolean() ? 1 : 1 + random.nextInt(5);
+        return new LagRange(first, last, step, pick(DurationUnit.values()), NONE);
+    }
+
+    Deseasonalized deseasonalized() {
+        return new Deseasonalized(maybe(this::period), NONE);
+    }
+
+    Coverage coverage() {
+        return new Coverage(random.nextBoolean() ? random.nextInt(101) : random.nextDouble() * 100, NONE);
+    }
+
+    Duration daysOrWeeks() {
+        return duration(1, 60, new DurationUnit[] {DurationUnit.DAY, DurationUnit.WEEK});
+    }
+
+    Duration duration(int from, int to, DurationUnit[] units) {
+        return new Duration(from + random.nextInt(to - from + 1), pick(units), NONE);
+    }
+
+    PartialDate day() {
+        int year = 2006 + random.nextInt(20);
+        int month = 1 + random.nextInt(12);
+        return PartialDate.ofDay(year, month, 1 + random.nextInt(java.time.YearMonth.of(year, month).lengthOfMonth()),
+                NONE);
+    }
+
     AreaSeries areaSeries() {
-        return new AreaSeries(statistic(), variable(), region(3), period(), new Step(pick(StepKind.values()), NONE),
+        return new AreaSeries(statistic(), variable(), region(3), period(), step(),
                 maybe(() -> new UnitRef(pick(UNITS), NONE)),
                 maybe(() -> new Comparison(pick(ComparisonKind.values()), maybe(this::period), NONE)),
-                maybe(() -> new Coverage(random.nextBoolean() ? random.nextInt(101) : random.nextDouble() * 100, NONE)),
-                NONE);
+                maybe(this::coverage), NONE);
     }
 
     Statistic statistic() {

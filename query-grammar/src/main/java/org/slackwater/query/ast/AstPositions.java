@@ -1,6 +1,7 @@
 package org.slackwater.query.ast;
 
 import java.util.List;
+import java.util.Optional;
 import java.util.stream.Collectors;
 
 /**
@@ -94,6 +95,120 @@ public final class AstPositions {
         if (node instanceof Coverage) {
             return new Coverage(((Coverage) node).percent(), none);
         }
+        Node statement = eraseNewStatement(node);
+        if (statement != null) {
+            return statement;
+        }
+        Node part = eraseNewPart(node);
+        if (part != null) {
+            return part;
+        }
         throw new IllegalArgumentException("unknown node type " + node.getClass().getName());
+    }
+
+    /** The statements beyond the area series, or null for any other node. */
+    private static Node eraseNewStatement(Node node) {
+        Position none = Position.NONE;
+        if (node instanceof Correlation c) {
+            return new Correlation(erase(c.series()), erase(c.driver()), erase(c.region()), erase(c.period()),
+                    erase(c.step()), eraseAll(c.lags()), c.method(), eraseAll(c.deseasonalized()),
+                    eraseAll(c.coverage()), none);
+        }
+        if (node instanceof DriverRanking r) {
+            return new DriverRanking(erase(r.series()), eraseAll(r.drivers()), erase(r.region()), erase(r.period()),
+                    erase(r.step()), eraseAll(r.lags()), r.method(), eraseAll(r.baseline()), eraseAll(r.coverage()),
+                    none);
+        }
+        if (node instanceof EventWindow w) {
+            return new EventWindow(erase(w.length()), eraseAll(w.events()), eraseAll(w.drivers()), erase(w.region()),
+                    eraseAll(w.baseline()), eraseAll(w.coverage()), none);
+        }
+        if (node instanceof StatisticMap m) {
+            return new StatisticMap(erase(m.values()), erase(m.region()), erase(m.period()), eraseAll(m.unit()), none);
+        }
+        if (node instanceof DifferenceMap m) {
+            return new DifferenceMap(erase(m.values()), erase(m.region()), erase(m.period()), erase(m.reference()),
+                    eraseAll(m.unit()), none);
+        }
+        if (node instanceof ComparisonMap m) {
+            return new ComparisonMap(erase(m.values()), erase(m.region()), erase(m.period()), eraseAll(m.unit()),
+                    erase(m.comparison()), none);
+        }
+        if (node instanceof CorrelationMap m) {
+            return new CorrelationMap(erase(m.values()), erase(m.region()), erase(m.driver()),
+                    erase(m.driverRegion()), erase(m.period()), erase(m.step()), eraseAll(m.lag()), m.method(),
+                    eraseAll(m.deseasonalized()), none);
+        }
+        if (node instanceof Watch w) {
+            return new Watch(w.name(), erase(w.region()), eraseAll(w.rules()), none);
+        }
+        if (node instanceof DerivedVariable d) {
+            return new DerivedVariable(erase(d.name()), erase(d.expression()), eraseAll(d.unit()), none);
+        }
+        return null;
+    }
+
+    /** The parts of those statements (conditions, expressions, lags, ...), or null. */
+    private static Node eraseNewPart(Node node) {
+        Position none = Position.NONE;
+        if (node instanceof SeriesTerm t) {
+            return new SeriesTerm(erase(t.statistic()), erase(t.variable()), eraseAll(t.region()), none);
+        }
+        if (node instanceof Duration d) {
+            return new Duration(d.amount(), d.unit(), none);
+        }
+        if (node instanceof LagRange l) {
+            return new LagRange(l.first(), l.last(), l.step(), l.unit(), none);
+        }
+        if (node instanceof Deseasonalized d) {
+            return new Deseasonalized(eraseAll(d.baseline()), none);
+        }
+        if (node instanceof WatchRule r) {
+            return new WatchRule(erase(r.condition()), r.severity(), none);
+        }
+        if (node instanceof AnyOf a) {
+            return new AnyOf(eraseAll(a.operands()), none);
+        }
+        if (node instanceof AllOf a) {
+            return new AllOf(eraseAll(a.operands()), none);
+        }
+        if (node instanceof Not n) {
+            return new Not(erase(n.operand()), none);
+        }
+        if (node instanceof ThresholdCondition t) {
+            return new ThresholdCondition(erase(t.series()), erase(t.threshold()), eraseAll(t.persistence()), none);
+        }
+        if (node instanceof ComparisonCondition c) {
+            return new ComparisonCondition(c.kind(), erase(c.series()), erase(c.threshold()), eraseAll(c.baseline()),
+                    eraseAll(c.persistence()), none);
+        }
+        if (node instanceof WatchSeries s) {
+            return new WatchSeries(erase(s.statistic()), erase(s.variable()), eraseAll(s.region()),
+                    eraseAll(s.window()), none);
+        }
+        if (node instanceof Threshold t) {
+            return new Threshold(t.operator(), t.value(), eraseAll(t.unit()), none);
+        }
+        if (node instanceof BinaryOp b) {
+            return new BinaryOp(erase(b.left()), b.operator(), erase(b.right()), none);
+        }
+        if (node instanceof Negate n) {
+            return new Negate(erase(n.operand()), none);
+        }
+        if (node instanceof VariableRef v) {
+            return new VariableRef(erase(v.variable()), none);
+        }
+        if (node instanceof NumberLiteral n) {
+            return new NumberLiteral(n.value(), eraseAll(n.unit()), none);
+        }
+        return null;
+    }
+
+    private static <T extends Node> Optional<T> eraseAll(Optional<T> node) {
+        return node.map(AstPositions::erase);
+    }
+
+    private static <T extends Node> List<T> eraseAll(List<T> nodes) {
+        return nodes.stream().map(AstPositions::erase).collect(Collectors.toList());
     }
 }

@@ -6,7 +6,8 @@ package org.slackwater.query.ast;
  */
 public sealed interface Node
         permits Script, Statement, RegionRef, Statistic, Identifier, Coordinate, Quantity, Period,
-                PartialDate, Step, UnitRef, Comparison, Coverage {
+                PartialDate, Step, UnitRef, Comparison, Coverage, SeriesTerm, Duration, LagRange,
+                Deseasonalized, WatchRule, WatchSeries, Threshold, Condition, Expression {
 
     /** Line and column of the node's first token. */
     Position position();

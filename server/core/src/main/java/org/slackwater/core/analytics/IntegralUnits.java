@@ -12,7 +12,7 @@ import java.util.List;
  * @param factor multiply integral values by this to express them in {@code unit}
  */
 public record IntegralUnits(String unit, double factor) {
-  private static final List<String> FAMILIAR = List.of("m3/day", "m3", "kg/day", "kg", "m2", "m2 day");
+  private static final List<String> FAMILIAR = List.of("m3/day", "m3", "mm", "kg/day", "kg", "m2", "m2 day");
 
   public static IntegralUnits times(String unit, String by) {
     if (!UnitConversion.known(unit)) {

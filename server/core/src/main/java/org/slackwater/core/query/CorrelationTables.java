@@ -76,19 +76,20 @@ final class CorrelationTables {
   }
 
   /** One candidate driver's best lag. */
-  record Ranked(String driver, String statistic, CorrelationResult result) {}
+  record Ranked(String driver, String region, String statistic, CorrelationResult result) {}
 
   static ResultTable ranking(String title, List<Ranked> drivers, TemporalStep step, Map<String, String> meta, List<String> warnings) {
     List<Ranked> sorted = new ArrayList<>(drivers);
     sorted.sort(Comparator.comparingDouble((Ranked d) -> d.result().best().map(b -> -Math.abs(b.r())).orElse(Double.POSITIVE_INFINITY)));
     int n = sorted.size();
     long[] rank = new long[n], lag = new long[n], count = new long[n];
-    String[] name = new String[n], stat = new String[n], sig = new String[n], bonf = new String[n], direction = new String[n];
+    String[] name = new String[n], where = new String[n], stat = new String[n], sig = new String[n], bonf = new String[n], direction = new String[n];
     double[] r = new double[n], p = new double[n], neff = new double[n];
     for (int i = 0; i < n; i++) {
       Ranked d = sorted.get(i);
       rank[i] = i + 1;
       name[i] = d.driver();
+      where[i] = d.region();
       stat[i] = d.statistic();
       Optional<LagRow> b = d.result().best();
       lag[i] = b.map(LagRow::lag).orElse(0);
@@ -104,7 +105,7 @@ final class CorrelationTables {
     m.put("lag_unit", SeriesPlanner.stepName(step) + " (positive: the driver leads)");
     m.put("ranked_by", "largest |r| at the best lag, on deseasonalized anomalies");
     return new ResultTable(title, List.of(
-        new Column.Longs("rank", "", rank), new Column.Strings("driver", name), new Column.Strings("statistic", stat),
+        new Column.Longs("rank", "", rank), new Column.Strings("driver", name), new Column.Strings("region", where), new Column.Strings("statistic", stat),
         new Column.Longs("best_lag", SeriesPlanner.stepName(step), lag), new Column.Doubles("r", "1", r),
         new Column.Strings("direction", direction), new Column.Longs("n", "", count), new Column.Doubles("n_effective", "", neff),
         new Column.Doubles("p_value", "1", p), new Column.Strings("significant", sig),

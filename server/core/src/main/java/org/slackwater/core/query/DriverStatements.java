@@ -56,8 +56,8 @@ final class DriverStatements {
 
   static CorrelationPlan analyze(Correlation q, SeriesPlanner planner) {
     double cov = coverage(q.coverage());
-    SeriesPlan target = planner.plan(q.series().statistic(), q.series().variable(), q.region(), q.period(), q.step().kind(), Optional.empty(), cov);
-    SeriesPlan driver = planner.plan(q.driver().statistic(), q.driver().variable(), q.region(), q.period(), q.step().kind(), Optional.empty(), cov);
+    SeriesPlan target = planner.plan(q.series().statistic(), q.series().variable(), q.series().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov);
+    SeriesPlan driver = planner.plan(q.driver().statistic(), q.driver().variable(), q.driver().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov);
     CorrelationSettings settings = settings(q.lags(), q.method(), target.step(), planner.source(), q);
     Optional<Deseasonalize> ds = q.deseasonalized().map(d -> baseline(Deseasonalize.anomalies(), d.baseline()));
     return new CorrelationPlan(q, target, driver, settings, ds);
@@ -69,23 +69,23 @@ final class DriverStatements {
     CorrelationResult res = correlate(t, d, p.settings(), p.query().lags().map(l -> (Node) l).orElse(p.query()), source);
     Map<String, String> meta = new LinkedHashMap<>();
     meta.put("query", source);
-    meta.put("target", p.target().statName() + " " + p.target().cube().name() + " [" + p.target().unit() + "]");
-    meta.put("driver", p.driver().statName() + " " + p.driver().cube().name() + " [" + p.driver().unit() + "]");
-    meta.put("region", p.target().regionLabel());
+    meta.put("target", p.target().statName() + " " + p.target().cube().name() + " [" + p.target().unit() + "] over " + p.target().regionLabel());
+    meta.put("driver", p.driver().statName() + " " + p.driver().cube().name() + " [" + p.driver().unit() + "] over " + p.driver().regionLabel());
     meta.put("deseasonalized", p.deseasonalize().isPresent() ? "yes (anomalies from a climatology by period of year)" : "no");
     List<String> warnings = new ArrayList<>(p.target().warnings());
     warnings.addAll(p.driver().warnings());
-    String title = "correlation of " + p.target().statName() + " " + p.target().cube().name() + " with " + p.driver().statName()
-        + " " + p.driver().cube().name() + " over " + p.target().regionLabel() + ", by " + SeriesPlanner.stepName(p.target().step());
+    String title = "correlation of " + p.target().statName() + " " + p.target().cube().name() + " over " + p.target().regionLabel()
+        + " with " + p.driver().statName() + " " + p.driver().cube().name() + " over " + p.driver().regionLabel()
+        + ", by " + SeriesPlanner.stepName(p.target().step());
     return CorrelationTables.lags(title, res, p.target().step(), meta, warnings);
   }
 
   static RankingPlan analyze(DriverRanking q, SeriesPlanner planner) {
     double cov = coverage(q.coverage());
-    SeriesPlan target = planner.plan(q.series().statistic(), q.series().variable(), q.region(), q.period(), q.step().kind(), Optional.empty(), cov);
+    SeriesPlan target = planner.plan(q.series().statistic(), q.series().variable(), q.series().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov);
     List<SeriesPlan> drivers = new ArrayList<>();
     for (SeriesTerm term : q.drivers()) {
-      drivers.add(planner.plan(term.statistic(), term.variable(), q.region(), q.period(), q.step().kind(), Optional.empty(), cov));
+      drivers.add(planner.plan(term.statistic(), term.variable(), term.regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov));
     }
     CorrelationSettings settings = settings(q.lags(), q.method(), target.step(), planner.source(), q);
     return new RankingPlan(q, target, drivers, q.drivers(), settings, baseline(Deseasonalize.anomalies(), q.baseline()));
@@ -99,7 +99,7 @@ final class DriverStatements {
       SeriesPlan dp = p.drivers().get(i);
       DatedSeries d = CorrelationTables.prepared(dp, cache, Optional.of(p.deseasonalize()));
       Node at = p.terms().get(i);
-      ranked.add(new CorrelationTables.Ranked(dp.cube().name(), dp.statName(), correlate(t, d, p.settings(), at, source)));
+      ranked.add(new CorrelationTables.Ranked(dp.cube().name(), dp.regionLabel(), dp.statName(), correlate(t, d, p.settings(), at, source)));
       warnings.addAll(dp.warnings());
     }
     Map<String, String> meta = new LinkedHashMap<>();
@@ -137,10 +137,10 @@ final class DriverStatements {
       first = Math.max(first, years[0]);
       last = Math.min(last, years[1]);
       Period span = new Period(PartialDate.ofYear(a.getYear(), q.position()), PartialDate.ofYear(b.getYear(), q.position()), q.position());
-      SeriesPlan daily = planner.plan(term.statistic(), term.variable(), q.region(), span, StepKind.DAY, Optional.empty(), cov);
+      SeriesPlan daily = planner.plan(term.statistic(), term.variable(), term.regionOr(q.region()), span, StepKind.DAY, Optional.empty(), cov);
       boolean total = daily.stat().kind() == SpatialStatistic.Kind.SUM;
       String unit = total ? IntegralUnits.times(daily.unit(), "day").unit() : daily.unit();
-      drivers.add(new EventWindows.Driver(daily.cube().name(), daily.statName(), unit, daily, total));
+      drivers.add(new EventWindows.Driver(daily.cube().name(), daily.regionLabel(), daily.statName(), unit, daily, total));
     }
     if (last - first < 1) {
       throw QueryException.at(q, planner.source(), "the drivers' data share fewer than two baseline years",
@@ -152,7 +152,6 @@ final class DriverStatements {
   static ResultTable execute(WindowPlan p, ChunkCache cache, String source) throws IOException {
     Map<String, String> meta = new LinkedHashMap<>();
     meta.put("query", source);
-    meta.put("region", p.drivers().get(0).daily().regionLabel());
     List<String> warnings = new ArrayList<>();
     for (EventWindows.Driver d : p.drivers()) {
       warnings.addAll(d.daily().warnings().stream().filter(w -> !w.startsWith("the period was clipped")).toList());

@@ -18,18 +18,19 @@ import org.slackwater.core.result.ResultTable;
  * total for a sum statistic), and compared with the same calendar window in every baseline year
  * other than the event's own: anomaly, standardized anomaly (sample standard deviation) and
  * mid-rank percentile, 100 (below + ½ equal) / n. A window with any day missing is left empty
- * for a total; a mean needs half of its days.
+ * for a total; a mean needs half of its days. A total over a window that includes a day the cube
+ * does not have (29 February on a noleap calendar) is scaled by days / steps present.
  */
 final class EventWindows {
   private EventWindows() {}
 
   /** A driver's daily series over the baseline years and the event windows; {@code total} sums instead of averaging. */
-  record Driver(String name, String statistic, String unit, SeriesPlan daily, boolean total) {}
+  record Driver(String name, String region, String statistic, String unit, SeriesPlan daily, boolean total) {}
 
   static ResultTable compute(List<LocalDate> events, int days, List<Driver> drivers, int baselineFirstYear, int baselineLastYear,
       ChunkCache cache, Map<String, String> meta, List<String> warnings) throws IOException {
     List<LocalDate> eventCol = new ArrayList<>(), startCol = new ArrayList<>(), endCol = new ArrayList<>();
-    List<String> driverCol = new ArrayList<>(), statCol = new ArrayList<>();
+    List<String> driverCol = new ArrayList<>(), regionCol = new ArrayList<>(), statCol = new ArrayList<>(), unitCol = new ArrayList<>();
     List<double[]> numbers = new ArrayList<>();
     List<Long> yearsCol = new ArrayList<>();
     for (Driver d : drivers) {
@@ -67,6 +68,8 @@ final class EventWindows {
         startCol.add(e.minusDays(days));
         endCol.add(e.minusDays(1));
         driverCol.add(d.name());
+        regionCol.add(d.region());
+        unitCol.add(d.unit());
         statCol.add(d.statistic() + (d.total() ? " (window total)" : " (window mean)"));
         numbers.add(new double[] {value, mean, sd, value - mean, sd > 0 ? (value - mean) / sd : Double.NaN, pct});
         yearsCol.add((long) b.length);
@@ -79,25 +82,18 @@ final class EventWindows {
         cols[c][i] = numbers.get(i)[c];
       }
     }
-    String[] units = new String[n];
-    for (int i = 0; i < n; i++) {
-      units[i] = unitOf(drivers, driverCol.get(i));
-    }
     Map<String, String> m = new LinkedHashMap<>(meta);
     m.put("window", days + " days before each event date (the event day itself excluded)");
     m.put("baseline_years", baselineFirstYear + " to " + baselineLastYear + ", each event's own year left out");
     return new ResultTable("windows of " + days + " days before " + events.size() + " event(s)", List.of(
         new Column.Dates("event", eventCol.toArray(LocalDate[]::new)), new Column.Strings("driver", driverCol.toArray(String[]::new)),
-        new Column.Strings("statistic", statCol.toArray(String[]::new)), new Column.Strings("units", units),
+        new Column.Strings("region", regionCol.toArray(String[]::new)),
+        new Column.Strings("statistic", statCol.toArray(String[]::new)), new Column.Strings("units", unitCol.toArray(String[]::new)),
         new Column.Dates("window_start", startCol.toArray(LocalDate[]::new)), new Column.Dates("window_end", endCol.toArray(LocalDate[]::new)),
         new Column.Doubles("value", "", cols[0]), new Column.Doubles("baseline_mean", "", cols[1]),
         new Column.Doubles("baseline_sd", "", cols[2]), new Column.Doubles("anomaly", "", cols[3]),
         new Column.Doubles("standardized_anomaly", "1", cols[4]), new Column.Doubles("percentile_rank", "%", cols[5]),
         new Column.Longs("baseline_years", "", yearsCol.stream().mapToLong(Long::longValue).toArray())), m, warnings);
-  }
-
-  private static String unitOf(List<Driver> drivers, String name) {
-    return drivers.stream().filter(d -> d.name().equals(name)).findFirst().map(Driver::unit).orElse("");
   }
 
   /** Mean (at least half the days present) or total (every day present) of the days before {@code end}. */

@@ -12,6 +12,8 @@ import org.slackwater.query.QueryParser;
 import org.slackwater.query.QueryException;
 import org.slackwater.query.ast.AreaSeries;
 import org.slackwater.query.ast.Correlation;
+import org.slackwater.query.ast.CorrelationMap;
+import org.slackwater.query.ast.MapStatement;
 import org.slackwater.query.ast.DriverRanking;
 import org.slackwater.query.ast.EventWindow;
 import org.slackwater.query.ast.DescribeVariable;
@@ -73,6 +75,8 @@ public final class QueryEngine {
         plans.add(DriverStatements.analyze(r, planner));
       } else if (s instanceof EventWindow w) {
         plans.add(DriverStatements.analyze(w, planner));
+      } else if (s instanceof MapStatement m && !(s instanceof CorrelationMap)) {
+        plans.add(MapStatements.analyze(m, planner, new MapStatements.RegionResolverFactory(new RegionResolver(catalog, text), weights)));
       } else {
         throw QueryException.at(s, text, "this kind of statement is understood but not run by this server version yet",
             "see 'Statements being built' in the language reference");
@@ -94,6 +98,9 @@ public final class QueryEngine {
       }
       if (plan instanceof DriverStatements.WindowPlan p) {
         return DriverStatements.execute(p, cache, text);
+      }
+      if (plan instanceof MapStatements.Plan p) {
+        return MapStatements.execute(p, cache, text);
       }
       CatalogStatements cat = new CatalogStatements(catalog, text);
       if (plan instanceof ListVariables) {

@@ -130,6 +130,11 @@ final class SeriesPlanner {
     return new int[] {time.firstAtOrAfter(start.toEpochDay() * 86_400L), time.firstAtOrAfter(end.plusDays(1).toEpochDay() * 86_400L)};
   }
 
+  /** The native step range of a period: clipped to the data with a warning; an error if wholly outside. */
+  int[] range(TimeAxis time, Period p, String cube, List<String> warnings) {
+    return stepRange(time, p, cube, warnings);
+  }
+
   private int[] stepRange(TimeAxis time, Period p, String cube, List<String> warnings) {
     if (time.size() == 0) {
       throw QueryException.at(p, source, "the cube " + cube + " has no time steps", "");
