@@ -68,6 +68,11 @@ final class Endpoints {
     try {
       ByteArrayOutputStream out = new ByteArrayOutputStream();
       if (format.get() == ResultFormat.CSV) {
+        // Definitions (let) report themselves in JSON; a CSV holds the one table the request computes.
+        List<ResultTable> computed = tables.stream().filter(t -> !t.metadata().containsKey("definition_only")).toList();
+        if (computed.size() == 1) {
+          tables = computed;
+        }
         if (tables.size() != 1) {
           return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "One table per CSV",
               "the query has " + tables.size() + " statements but CSV holds one table; ask for ?format=json or send one statement");

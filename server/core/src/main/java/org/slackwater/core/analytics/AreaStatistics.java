@@ -35,7 +35,7 @@ public final class AreaStatistics {
    * @param to last step index (exclusive)
    * @param minCoverage 0..1
    */
-  public static DailySeries compute(ChunkCache cache, CubeEntry cube, CellWeights weights, SpatialStatistic stat,
+  public static DailySeries compute(ChunkSource cache, CubeEntry cube, CellWeights weights, SpatialStatistic stat,
       int from, int to, double minCoverage) throws IOException {
     int n = Math.max(0, to - from);
     double regionArea = 0;

@@ -32,7 +32,7 @@ public final class CellStatistics {
   /**
    * @return per weight entry (same order as {@code weights}): [value, valid steps]
    */
-  public static double[][] compute(ChunkCache cache, CubeEntry cube, CellWeights weights, SpatialStatistic stat, int from, int to) throws IOException {
+  public static double[][] compute(ChunkSource cache, CubeEntry cube, CellWeights weights, SpatialStatistic stat, int from, int to) throws IOException {
     int m = weights.size(), n = Math.max(0, to - from);
     int rows = cube.layout().rows(), cols = cube.layout().columns();
     double[] sum = new double[m], min = new double[m], max = new double[m];

@@ -16,7 +16,7 @@ import org.slackwater.core.store.CubeStore;
  * happens outside the lock; two threads asking for the same cold chunk may both decode it, which
  * costs time, never correctness.
  */
-public final class ChunkCache {
+public final class ChunkCache implements ChunkSource {
 
   private record Key(String cube, int version, String file) {}
 
@@ -31,6 +31,7 @@ public final class ChunkCache {
   }
 
   /** The chunk's values; the returned array is shared and must not be modified. */
+  @Override
   public float[] get(CubeEntry cube, ChunkRecord chunk) throws IOException {
     Key key = new Key(cube.name(), cube.version(), chunk.file());
     synchronized (this) {

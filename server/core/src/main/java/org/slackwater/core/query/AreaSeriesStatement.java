@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.Climatology;
 import org.slackwater.core.analytics.StepSeries;
 import org.slackwater.core.analytics.TemporalStep;
@@ -43,7 +43,7 @@ final class AreaSeriesStatement {
     return new Plan(q, series, q.comparison(), baseline);
   }
 
-  static ResultTable execute(Plan plan, ChunkCache cache, String source) throws IOException {
+  static ResultTable execute(Plan plan, ChunkSource cache, String source) throws IOException {
     SeriesPlan sp = plan.series();
     StepSeries series = sp.compute(cache);
     TemporalStep step = sp.step();

@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.TemporalStep;
 import org.slackwater.core.analytics.correlation.CorrelationResult;
 import org.slackwater.core.analytics.correlation.CorrelationSettings;
@@ -31,7 +31,7 @@ final class CorrelationTables {
   private CorrelationTables() {}
 
   /** A series ready for correlation: computed, optionally deseasonalized over the baseline. */
-  static DatedSeries prepared(SeriesPlan plan, ChunkCache cache, Optional<Deseasonalize> deseasonalize) throws IOException {
+  static DatedSeries prepared(SeriesPlan plan, ChunkSource cache, Optional<Deseasonalize> deseasonalize) throws IOException {
     DatedSeries s = DatedSeries.of(plan.compute(cache));
     return deseasonalize.isPresent() ? deseasonalize.get().apply(s) : s;
   }

@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
-import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.IntegralUnits;
 import org.slackwater.core.analytics.SpatialStatistic;
 import org.slackwater.core.analytics.TemporalStep;
@@ -63,7 +63,7 @@ final class DriverStatements {
     return new CorrelationPlan(q, target, driver, settings, ds);
   }
 
-  static ResultTable execute(CorrelationPlan p, ChunkCache cache, String source) throws IOException {
+  static ResultTable execute(CorrelationPlan p, ChunkSource cache, String source) throws IOException {
     DatedSeries t = CorrelationTables.prepared(p.target(), cache, p.deseasonalize());
     DatedSeries d = CorrelationTables.prepared(p.driver(), cache, p.deseasonalize());
     CorrelationResult res = correlate(t, d, p.settings(), p.query().lags().map(l -> (Node) l).orElse(p.query()), source);
@@ -91,7 +91,7 @@ final class DriverStatements {
     return new RankingPlan(q, target, drivers, q.drivers(), settings, baseline(Deseasonalize.anomalies(), q.baseline()));
   }
 
-  static ResultTable execute(RankingPlan p, ChunkCache cache, String source) throws IOException {
+  static ResultTable execute(RankingPlan p, ChunkSource cache, String source) throws IOException {
     DatedSeries t = CorrelationTables.prepared(p.target(), cache, Optional.of(p.deseasonalize()));
     List<CorrelationTables.Ranked> ranked = new ArrayList<>();
     List<String> warnings = new ArrayList<>(p.target().warnings());
@@ -149,7 +149,7 @@ final class DriverStatements {
     return new WindowPlan(q, events, days, drivers, first, last);
   }
 
-  static ResultTable execute(WindowPlan p, ChunkCache cache, String source) throws IOException {
+  static ResultTable execute(WindowPlan p, ChunkSource cache, String source) throws IOException {
     Map<String, String> meta = new LinkedHashMap<>();
     meta.put("query", source);
     List<String> warnings = new ArrayList<>();

@@ -7,7 +7,7 @@ import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.StepSeries;
 import org.slackwater.core.result.Column;
 import org.slackwater.core.result.ResultTable;
@@ -28,7 +28,7 @@ final class EventWindows {
   record Driver(String name, String region, String statistic, String unit, SeriesPlan daily, boolean total) {}
 
   static ResultTable compute(List<LocalDate> events, int days, List<Driver> drivers, int baselineFirstYear, int baselineLastYear,
-      ChunkCache cache, Map<String, String> meta, List<String> warnings) throws IOException {
+      ChunkSource cache, Map<String, String> meta, List<String> warnings) throws IOException {
     List<LocalDate> eventCol = new ArrayList<>(), startCol = new ArrayList<>(), endCol = new ArrayList<>();
     List<String> driverCol = new ArrayList<>(), regionCol = new ArrayList<>(), statCol = new ArrayList<>(), unitCol = new ArrayList<>();
     List<double[]> numbers = new ArrayList<>();

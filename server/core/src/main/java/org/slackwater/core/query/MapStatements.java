@@ -10,7 +10,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import org.slackwater.core.analytics.CellStatistics;
-import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.IntegralUnits;
 import org.slackwater.core.analytics.SpatialStatistic;
 import org.slackwater.core.analytics.UnitConversion;
@@ -110,7 +110,7 @@ final class MapStatements {
     return out;
   }
 
-  static ResultTable execute(Plan p, ChunkCache cache, String source) throws IOException {
+  static ResultTable execute(Plan p, ChunkSource cache, String source) throws IOException {
     double[][] main = values(p, cache, p.range());
     int m = p.weights().size();
     double[] value = new double[m];
@@ -209,7 +209,7 @@ final class MapStatements {
     return new ResultTable(title, cols, head, p.warnings());
   }
 
-  private static double[][] values(Plan p, ChunkCache cache, int[] range) throws IOException {
+  private static double[][] values(Plan p, ChunkSource cache, int[] range) throws IOException {
     double[][] v = CellStatistics.compute(cache, p.cube(), p.weights(), p.stat(), range[0], range[1]);
     for (double[] cell : v) {
       if (!Double.isNaN(cell[0])) {

@@ -6,12 +6,14 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.catalog.Catalog;
 import org.slackwater.core.result.ResultTable;
 import org.slackwater.query.QueryParser;
 import org.slackwater.query.QueryException;
 import org.slackwater.query.ast.AreaSeries;
 import org.slackwater.query.ast.Correlation;
+import org.slackwater.query.ast.DerivedVariable;
 import org.slackwater.query.ast.CorrelationMap;
 import org.slackwater.query.ast.MapStatement;
 import org.slackwater.query.ast.DriverRanking;
@@ -44,21 +46,30 @@ public final class QueryEngine {
 
   /** Parses, analyses every statement (so an error in the last one is reported before any work), then executes. */
   public List<ResultTable> run(String text) {
-    List<Object> plans = analyze(text);
+    Analysis a = analysis(text);
+    ChunkSource chunks = a.derived().chunks(cache);
     List<ResultTable> out = new ArrayList<>();
-    for (Object p : plans) {
-      out.add(execute(p, text));
+    for (Object p : a.plans()) {
+      out.add(execute(p, chunks, text));
     }
     return out;
   }
+
+  /** The plans of a request and the derived variables they may read. */
+  private record Analysis(List<Object> plans, DerivedVariables derived) {}
 
   /**
    * Parses and analyses without computing: names, regions and their weights, dates and units are
    * resolved. Returns one opaque plan per statement, in order.
    */
   public List<Object> analyze(String text) {
+    return analysis(text).plans();
+  }
+
+  private Analysis analysis(String text) {
     Script script = QueryParser.parse(text);
-    SeriesPlanner planner = new SeriesPlanner(catalog, weights, text);
+    DerivedVariables derived = new DerivedVariables(catalog, text);
+    SeriesPlanner planner = new SeriesPlanner(catalog, weights, text, derived);
     CatalogStatements cat = new CatalogStatements(catalog, text);
     List<Object> plans = new ArrayList<>();
     for (Statement s : script.statements()) {
@@ -75,6 +86,8 @@ public final class QueryEngine {
         plans.add(DriverStatements.analyze(r, planner));
       } else if (s instanceof EventWindow w) {
         plans.add(DriverStatements.analyze(w, planner));
+      } else if (s instanceof DerivedVariable d) {
+        plans.add(derived.define(d));
       } else if (s instanceof MapStatement m && !(s instanceof CorrelationMap)) {
         plans.add(MapStatements.analyze(m, planner, new MapStatements.RegionResolverFactory(new RegionResolver(catalog, text), weights)));
       } else {
@@ -82,11 +95,14 @@ public final class QueryEngine {
             "see 'Statements being built' in the language reference");
       }
     }
-    return plans;
+    return new Analysis(plans, derived);
   }
 
-  private ResultTable execute(Object plan, String text) {
+  private ResultTable execute(Object plan, ChunkSource cache, String text) {
     try {
+      if (plan instanceof ResultTable t) {
+        return t;
+      }
       if (plan instanceof AreaSeriesStatement.Plan p) {
         return AreaSeriesStatement.execute(p, cache, text);
       }

@@ -4,7 +4,7 @@ import java.io.IOException;
 import java.util.List;
 import java.util.Objects;
 import org.slackwater.core.analytics.AreaStatistics;
-import org.slackwater.core.analytics.ChunkCache;
+import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.DailySeries;
 import org.slackwater.core.analytics.SpatialStatistic;
 import org.slackwater.core.analytics.StepSeries;
@@ -45,7 +45,7 @@ record SeriesPlan(CubeEntry cube, CellWeights weights, String regionLabel, Spati
   }
 
   /** Computes the series; values are in {@link #unit}. */
-  StepSeries compute(ChunkCache cache) throws IOException {
+  StepSeries compute(ChunkSource cache) throws IOException {
     DailySeries daily = AreaStatistics.compute(cache, cube, weights, stat, from, to, coveragePercent / 100.0);
     StepSeries s = TemporalAggregation.aggregate(daily, step, stat);
     double[] v = s.value().clone();

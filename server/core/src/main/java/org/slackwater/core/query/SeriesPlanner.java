@@ -39,11 +39,13 @@ final class SeriesPlanner {
   private final Catalog catalog;
   private final WeightsCache weights;
   private final String source;
+  private final DerivedVariables derived;
 
-  SeriesPlanner(Catalog catalog, WeightsCache weights, String source) {
+  SeriesPlanner(Catalog catalog, WeightsCache weights, String source, DerivedVariables derived) {
     this.catalog = catalog;
     this.weights = weights;
     this.source = source;
+    this.derived = derived;
   }
 
   String source() {
@@ -101,8 +103,9 @@ final class SeriesPlanner {
     return new SeriesPlan(cube, w, region.label(), stat, statName(statistic), step, range[0], range[1], coveragePercent, factor, conv, unit, warnings);
   }
 
+  /** A stored cube, or a derived variable defined earlier in the request. */
   CubeEntry cube(Identifier variable) {
-    return catalog.cube(variable.name()).orElseThrow(() -> unknownVariable(catalog, variable, source));
+    return derived.cube(variable.name()).orElseThrow(() -> unknownVariable(catalog, variable, source));
   }
 
   /** Native step range of a baseline period, which must lie within the data; or the cube's complete years. */

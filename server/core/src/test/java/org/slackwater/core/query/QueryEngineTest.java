@@ -116,6 +116,23 @@ class QueryEngineTest {
   }
 
   @Test
+  void aDerivedVariableIsComputedCellByCell() {
+    List<ResultTable> r = ws.engine().run("let doubled = 2 * temp + 1 degC; mean doubled over \"Test Box\" during 2014-02 by day; "
+        + "mean temp over \"Test Box\" during 2014-02 by day");
+    Column.Doubles d = (Column.Doubles) r.get(1).column("mean_doubled");
+    Column.Doubles t = (Column.Doubles) r.get(2).column("mean_temp");
+    assertEquals("degC", d.unit());
+    for (int i = 0; i < t.size(); i++) {
+      // The area mean is linear: mean(2 x + 1) = 2 mean(x) + 1.
+      assertEquals(2 * t.get(i) + 1, d.get(i), 1e-4);
+    }
+    QueryException e = assertThrows(QueryException.class, () -> ws.engine().run("let bad = temp + 1 mg/L; list variables"));
+    assertEquals("cannot add 'mg/L' to 'degC'", e.detail());
+    QueryException taken = assertThrows(QueryException.class, () -> ws.engine().run("let temp = 2 * 1 degC; list variables"));
+    assertEquals("'temp' is already a stored variable", taken.detail());
+  }
+
+  @Test
   void catalogStatementsListWhatIsLoaded() {
     List<ResultTable> r = ws.engine().run("list variables; list regions; describe temp");
     assertEquals("temp", ((Column.Strings) r.get(0).column("variable")).get(0));
