@@ -94,8 +94,24 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       }
       return notAllowed("PUT");
     }
+    if (path.equals("/api/watches")) {
+      if (m.equals(HttpMethod.GET)) {
+        return endpoints.watches();
+      }
+      if (m.equals(HttpMethod.POST)) {
+        return admin(req).orElseGet(() -> endpoints.putWatch(body, bearer(req)));
+      }
+      return notAllowed("GET, POST");
+    }
+    if (path.startsWith("/api/watches/")) {
+      String name = decode(path.substring("/api/watches/".length()));
+      if (m.equals(HttpMethod.DELETE)) {
+        return admin(req).orElseGet(() -> endpoints.deleteWatch(name));
+      }
+      return notAllowed("DELETE");
+    }
     return Problem.of(HttpResponseStatus.NOT_FOUND, "No such endpoint",
-        "the API has /api/query, /api/cubes, /api/regions and /api/health");
+        "the API has /api/query, /api/cubes, /api/regions, /api/watches and /api/health");
   }
 
   /** Empty if the request carries the admin token; otherwise the refusal. */
@@ -104,14 +120,18 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       return Optional.of(Problem.of(HttpResponseStatus.FORBIDDEN, "Admin endpoints are off",
           "set SLACKWATER_ADMIN_TOKEN (or --admin-token) when starting the server to enable them"));
     }
-    String auth = req.headers().get(HttpHeaderNames.AUTHORIZATION, "");
-    String given = auth.startsWith("Bearer ") ? auth.substring(7).trim() : "";
+    String given = bearer(req);
     boolean ok = MessageDigest.isEqual(given.getBytes(StandardCharsets.UTF_8), config.adminToken().get().getBytes(StandardCharsets.UTF_8));
     if (!ok) {
       Reply r = Problem.of(HttpResponseStatus.UNAUTHORIZED, "Admin token required", "send 'Authorization: Bearer <token>' with the server's admin token");
       return Optional.of(new Reply(r.status(), r.contentType(), r.body(), java.util.Map.of("WWW-Authenticate", "Bearer")));
     }
     return Optional.empty();
+  }
+
+  private static String bearer(FullHttpRequest req) {
+    String auth = req.headers().get(HttpHeaderNames.AUTHORIZATION, "");
+    return auth.startsWith("Bearer ") ? auth.substring(7).trim() : "";
   }
 
   private static Reply notAllowed(String allowed) {

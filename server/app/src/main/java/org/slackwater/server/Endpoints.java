@@ -16,10 +16,13 @@ import java.util.List;
 import java.util.Optional;
 import org.slackwater.core.Workspace;
 import org.slackwater.core.catalog.CubeEntry;
+import org.slackwater.core.catalog.StoredWatch;
 import org.slackwater.core.cube.CubeDescriptor;
 import org.slackwater.core.cube.LatLonGrid;
 import org.slackwater.core.ingest.IngestException;
 import org.slackwater.core.ingest.IngestReport;
+import org.slackwater.core.query.QueryEngine;
+import org.slackwater.core.query.WatchStatements;
 import org.slackwater.core.region.GeoJsonRegions;
 import org.slackwater.core.region.Region;
 import org.slackwater.core.region.RegionException;
@@ -160,6 +163,46 @@ final class Endpoints {
       return Reply.text(HttpResponseStatus.OK, JSON_TYPE, a.toString());
     } catch (IngestException e) {
       return Problem.of(HttpResponseStatus.UNPROCESSABLE_ENTITY, "The file cannot be ingested", e.getMessage());
+    }
+  }
+
+  Reply watches() {
+    ObjectNode o = JSON.createObjectNode();
+    ArrayNode a = o.putArray("watches");
+    for (StoredWatch w : workspace.catalog().watches()) {
+      a.addObject().put("name", w.name()).put("version", w.version()).put("created", w.created().toString()).put("text", w.text());
+    }
+    o.put("caution", WatchStatements.CAUTION);
+    return Reply.text(HttpResponseStatus.OK, JSON_TYPE, o.toString());
+  }
+
+  /** Checks and stores a watch definition (the body is its text); the owner is recorded as the token's SHA-256. */
+  Reply putWatch(String body, String token) {
+    QueryEngine.CheckedWatch w;
+    try {
+      w = workspace.engine().checkWatch(body);
+    } catch (QueryException e) {
+      return Problem.query(e);
+    }
+    StoredWatch stored = workspace.catalog().putWatch(w.name(), w.text(), sha256(token));
+    ObjectNode o = JSON.createObjectNode();
+    o.put("name", stored.name()).put("version", stored.version()).put("created", stored.created().toString()).put("text", stored.text());
+    o.put("caution", WatchStatements.CAUTION);
+    return Reply.text(stored.version() == 1 ? HttpResponseStatus.CREATED : HttpResponseStatus.OK, JSON_TYPE, o.toString());
+  }
+
+  Reply deleteWatch(String name) {
+    if (!workspace.catalog().removeWatch(name)) {
+      return Problem.of(HttpResponseStatus.NOT_FOUND, "No such watch", "there is no watch named '" + name + "'; GET /api/watches lists them");
+    }
+    return Reply.of(HttpResponseStatus.NO_CONTENT, JSON_TYPE, new byte[0]);
+  }
+
+  private static String sha256(String s) {
+    try {
+      return java.util.HexFormat.of().formatHex(java.security.MessageDigest.getInstance("SHA-256").digest(s.getBytes(StandardCharsets.UTF_8)));
+    } catch (java.security.NoSuchAlgorithmException e) {
+      throw new IllegalStateException(e);
     }
   }
 

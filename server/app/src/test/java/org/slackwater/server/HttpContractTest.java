@@ -116,6 +116,29 @@ class HttpContractTest {
   }
 
   @Test
+  void watchesAreCheckedStoredVersionedAndCarryTheCaution() throws Exception {
+    String w = "watch \"Test bloom\" over \"Outer Bay\" when mean chlorophyll above 10 mg/m3 for 3 days";
+    problem(send(at("/api/watches").POST(HttpRequest.BodyPublishers.ofString(w))), 401);
+    HttpResponse<String> created = send(at("/api/watches").header("Authorization", "Bearer s3cret").POST(HttpRequest.BodyPublishers.ofString(w)));
+    assertEquals(201, created.statusCode(), created.body());
+    JsonNode c = JSON.readTree(created.body());
+    assertEquals(1, c.get("version").asInt());
+    assertTrue(c.get("caution").asText().contains("Confirm with water sampling"));
+    HttpResponse<String> again = send(at("/api/watches").header("Authorization", "Bearer s3cret").POST(HttpRequest.BodyPublishers.ofString(w)));
+    assertEquals(200, again.statusCode());
+    assertEquals(2, JSON.readTree(again.body()).get("version").asInt());
+    JsonNode list = JSON.readTree(send(at("/api/watches").GET()).body());
+    assertEquals("Test bloom", list.get("watches").get(0).get("name").asText());
+    assertTrue(list.get("caution").asText().startsWith("Screening aid only"));
+    JsonNode bad = problem(send(at("/api/watches").header("Authorization", "Bearer s3cret")
+        .POST(HttpRequest.BodyPublishers.ofString("watch \"x\" over \"Outer Bay\" when mean chlorophyll above 10 for 3 days"))), 400);
+    assertEquals("give the threshold's unit: the data are in 'mg m-3'", bad.get("detail").asText());
+    assertEquals(50, bad.get("column").asInt()); // the threshold, at "above"
+    assertEquals(204, send(at("/api/watches/Test%20bloom").header("Authorization", "Bearer s3cret").DELETE()).statusCode());
+    problem(send(at("/api/watches/Test%20bloom").header("Authorization", "Bearer s3cret").DELETE()), 404);
+  }
+
+  @Test
   void aBadFileSentForIngestChangesNothing() throws Exception {
     Files.writeString(ingestRoot.resolve("notes.nc"), "this is not NetCDF");
     int before = ws.catalog().cubes().size();

@@ -70,6 +70,10 @@ public final class Catalog implements AutoCloseable {
               file TEXT NOT NULL, sha256 TEXT NOT NULL, bytes INTEGER NOT NULL, valid INTEGER NOT NULL,
               PRIMARY KEY (cube, version, t0, y0, x0))""");
         s.execute("""
+            CREATE TABLE IF NOT EXISTS watch (
+              name TEXT PRIMARY KEY COLLATE NOCASE, text TEXT NOT NULL, owner_sha256 TEXT NOT NULL,
+              created_at TEXT NOT NULL, version INTEGER NOT NULL)""");
+        s.execute("""
             CREATE TABLE IF NOT EXISTS region (
               name TEXT PRIMARY KEY COLLATE NOCASE, kind TEXT NOT NULL, geojson TEXT NOT NULL, updated_at TEXT NOT NULL)""");
       }
@@ -242,6 +246,45 @@ public final class Catalog implements AutoCloseable {
       return ps.executeUpdate() > 0;
     } catch (SQLException e) {
       throw new CatalogException("removing region '" + name + "' failed: " + e.getMessage(), e);
+    }
+  }
+
+  /** Stores a watch, replacing one of the same name with the next version; returns what was stored. */
+  public synchronized StoredWatch putWatch(String name, String text, String ownerSha256) {
+    int version = watches().stream().filter(w -> w.name().equalsIgnoreCase(name)).mapToInt(StoredWatch::version).max().orElse(0) + 1;
+    StoredWatch w = new StoredWatch(name, text, ownerSha256, Instant.now(), version);
+    try (PreparedStatement ps = db.prepareStatement("INSERT OR REPLACE INTO watch VALUES (?,?,?,?,?)")) {
+      ps.setString(1, w.name());
+      ps.setString(2, w.text());
+      ps.setString(3, w.ownerSha256());
+      ps.setString(4, w.created().toString());
+      ps.setInt(5, w.version());
+      ps.executeUpdate();
+    } catch (SQLException e) {
+      throw new CatalogException("storing watch '" + name + "' failed: " + e.getMessage(), e);
+    }
+    return w;
+  }
+
+  public synchronized List<StoredWatch> watches() {
+    List<StoredWatch> out = new ArrayList<>();
+    try (PreparedStatement ps = db.prepareStatement("SELECT * FROM watch ORDER BY name COLLATE NOCASE"); ResultSet rs = ps.executeQuery()) {
+      while (rs.next()) {
+        out.add(new StoredWatch(rs.getString("name"), rs.getString("text"), rs.getString("owner_sha256"),
+            Instant.parse(rs.getString("created_at")), rs.getInt("version")));
+      }
+    } catch (SQLException e) {
+      throw new CatalogException("reading watches failed: " + e.getMessage(), e);
+    }
+    return out;
+  }
+
+  public synchronized boolean removeWatch(String name) {
+    try (PreparedStatement ps = db.prepareStatement("DELETE FROM watch WHERE name = ?")) {
+      ps.setString(1, name);
+      return ps.executeUpdate() > 0;
+    } catch (SQLException e) {
+      throw new CatalogException("removing watch '" + name + "' failed: " + e.getMessage(), e);
     }
   }
 

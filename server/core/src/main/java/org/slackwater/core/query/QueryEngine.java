@@ -10,10 +10,12 @@ import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.catalog.Catalog;
 import org.slackwater.core.result.ResultTable;
 import org.slackwater.query.QueryParser;
+import org.slackwater.query.QueryPrinter;
 import org.slackwater.query.QueryException;
 import org.slackwater.query.ast.AreaSeries;
 import org.slackwater.query.ast.Correlation;
 import org.slackwater.query.ast.DerivedVariable;
+import org.slackwater.query.ast.Watch;
 import org.slackwater.query.ast.CorrelationMap;
 import org.slackwater.query.ast.MapStatement;
 import org.slackwater.query.ast.DriverRanking;
@@ -55,6 +57,24 @@ public final class QueryEngine {
     return out;
   }
 
+  /** A watch definition that passed its checks: its name, canonical text and description. */
+  public record CheckedWatch(String name, String text, ResultTable description) {}
+
+  /**
+   * Parses and checks one watch definition (the body of {@code POST /api/watches}); nothing is
+   * stored here.
+   */
+  public CheckedWatch checkWatch(String text) {
+    Script script = QueryParser.parse(text);
+    if (script.statements().size() != 1 || !(script.statements().get(0) instanceof Watch w)) {
+      throw QueryException.at(script.statements().isEmpty() ? script : script.statements().get(0), text,
+          "send exactly one watch definition", "e.g. watch \"North Intake bloom\" over \"North Intake\" when mean chlorophyll above 10 mg m-3 for 3 days");
+    }
+    DerivedVariables derived = new DerivedVariables(catalog, text);
+    ResultTable d = WatchStatements.check(w, new SeriesPlanner(catalog, weights, text, derived));
+    return new CheckedWatch(w.name(), QueryPrinter.print(w), d);
+  }
+
   /** The plans of a request and the derived variables they may read. */
   private record Analysis(List<Object> plans, DerivedVariables derived) {}
 
@@ -86,6 +106,8 @@ public final class QueryEngine {
         plans.add(DriverStatements.analyze(r, planner));
       } else if (s instanceof EventWindow w) {
         plans.add(DriverStatements.analyze(w, planner));
+      } else if (s instanceof Watch w) {
+        plans.add(WatchStatements.check(w, planner));
       } else if (s instanceof DerivedVariable d) {
         plans.add(derived.define(d));
       } else if (s instanceof MapStatement m && !(s instanceof CorrelationMap)) {
