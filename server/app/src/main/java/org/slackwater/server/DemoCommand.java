@@ -51,7 +51,7 @@ public final class DemoCommand implements Callable<Integer> {
     Path files = dir.resolve(small ? "files-small" : "files");
     Path store = dir.resolve(small ? "store-small" : "store");
     DemoManifest manifest = ensureFiles(files);
-    try (Workspace ws = Workspace.open(store)) {
+    try (Workspace ws = Workspace.open(store, serve.earth)) {
       prepare(ws, manifest);
       if (noServe) {
         return 0;

@@ -19,7 +19,7 @@ import picocli.CommandLine.Parameters;
 public final class Main implements Runnable {
 
   public static void main(String[] args) {
-    CommandLine cl = new CommandLine(new Main());
+    CommandLine cl = new CommandLine(new Main()).setCaseInsensitiveEnumValuesAllowed(true);
     // Failures the user can act on are one line, not a stack trace.
     cl.setExecutionExceptionHandler((ex, line, parsed) -> {
       System.err.println("error: " + ex.getMessage());
@@ -50,6 +50,10 @@ public final class Main implements Runnable {
     @Option(names = "--ingest-root", description = "Directory POST /api/cubes may ingest files from (default: off).")
     Path ingestRoot;
 
+    @Option(names = "--earth", defaultValue = "sphere",
+        description = "Figure of the Earth for cell areas: sphere (radius 6371000 m) or wgs84 (default ${DEFAULT-VALUE}).")
+    org.slackwater.core.region.AreaModel earth;
+
     ServerConfig config() {
       String token = adminToken != null ? adminToken : System.getenv("SLACKWATER_ADMIN_TOKEN");
       return new ServerConfig(host, port, maxBody, Optional.ofNullable(token).filter(s -> !s.isBlank()), Optional.ofNullable(ingestRoot));
@@ -66,7 +70,7 @@ public final class Main implements Runnable {
 
     @Override
     public Integer call() throws Exception {
-      try (Workspace ws = Workspace.open(data); HttpServer server = HttpServer.start(ws, serve.config())) {
+      try (Workspace ws = Workspace.open(data, serve.earth); HttpServer server = HttpServer.start(ws, serve.config())) {
         System.out.println("listening on " + server.url());
         server.awaitClose();
       }

@@ -12,6 +12,7 @@ import org.slackwater.core.catalog.Catalog;
 import org.slackwater.core.ingest.Ingestor;
 import org.slackwater.core.query.QueryEngine;
 import org.slackwater.core.query.WeightsCache;
+import org.slackwater.core.region.AreaModel;
 import org.slackwater.core.spi.CubeSource;
 import org.slackwater.core.store.ChunkLayout;
 import org.slackwater.core.store.CubeStore;
@@ -37,7 +38,7 @@ public final class Workspace implements AutoCloseable {
   private final QueryEngine engine;
   private final List<CubeSource> sources;
 
-  private Workspace(Path root, long memoryLimitBytes, long cacheBytes, ChunkLayout layout) throws IOException {
+  private Workspace(Path root, long memoryLimitBytes, long cacheBytes, ChunkLayout layout, AreaModel areas) throws IOException {
     this.root = root;
     this.allocator = new RootAllocator(memoryLimitBytes);
     Catalog c = null;
@@ -49,7 +50,7 @@ public final class Workspace implements AutoCloseable {
       this.cache = new ChunkCache(store, cacheBytes);
       this.sources = loadSources();
       this.ingestor = new Ingestor(sources, catalog, store, layout);
-      this.engine = new QueryEngine(catalog, cache, new WeightsCache(256));
+      this.engine = new QueryEngine(catalog, cache, new WeightsCache(256, areas));
     } catch (IOException | RuntimeException e) {
       if (c != null) {
         c.close();
@@ -64,7 +65,12 @@ public final class Workspace implements AutoCloseable {
   }
 
   public static Workspace open(Path root, long memoryLimitBytes, long cacheBytes, ChunkLayout layout) throws IOException {
-    return new Workspace(root, memoryLimitBytes, cacheBytes, layout);
+    return new Workspace(root, memoryLimitBytes, cacheBytes, layout, AreaModel.SPHERE);
+  }
+
+  /** Opens with cell areas measured on {@code areas} (the sphere unless told otherwise). */
+  public static Workspace open(Path root, AreaModel areas) throws IOException {
+    return new Workspace(root, 1L << 30, 512L << 20, ChunkLayout.DEFAULT, areas);
   }
 
   private static List<CubeSource> loadSources() {

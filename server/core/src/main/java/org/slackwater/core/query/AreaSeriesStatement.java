@@ -128,6 +128,7 @@ final class AreaSeriesStatement {
     meta.put("region_area_m2", Double.toString(sp.weights().regionAreaM2()));
     meta.put("region_area_on_grid_m2", Double.toString(sp.weights().totalArea()));
     meta.put("region_cells", Integer.toString(sp.weights().size()));
+    meta.put("cell_areas", "exact cell fractions inside the region x cell area on the " + sp.areaModel());
     meta.put("step", step.name().toLowerCase(Locale.ROOT));
     meta.put("coverage_rule", "native steps with less than " + SeriesPlanner.fmt(sp.coveragePercent())
         + " % of the region's data area valid are missing");

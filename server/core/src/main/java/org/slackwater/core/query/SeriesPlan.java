@@ -25,10 +25,11 @@ import org.slackwater.core.region.CellWeights;
  * @param factor integral factor applied before the unit conversion (1 unless a sum)
  * @param unit the unit values are reported in
  * @param warnings what analysis found worth telling (clipped periods ...)
+ * @param areaModel the figure of the Earth cell areas are measured on, for the metadata
  */
 record SeriesPlan(CubeEntry cube, CellWeights weights, String regionLabel, SpatialStatistic stat, String statName,
     TemporalStep step, int from, int to, double coveragePercent, double factor, UnitConversion conversion, String unit,
-    List<String> warnings) {
+    List<String> warnings, String areaModel) {
 
   SeriesPlan {
     Objects.requireNonNull(cube);
@@ -41,7 +42,7 @@ record SeriesPlan(CubeEntry cube, CellWeights weights, String regionLabel, Spati
 
   /** The same series over other native steps (e.g. a baseline). */
   SeriesPlan over(int newFrom, int newTo) {
-    return new SeriesPlan(cube, weights, regionLabel, stat, statName, step, newFrom, newTo, coveragePercent, factor, conversion, unit, warnings);
+    return new SeriesPlan(cube, weights, regionLabel, stat, statName, step, newFrom, newTo, coveragePercent, factor, conversion, unit, warnings, areaModel);
   }
 
   /** Computes the series; values are in {@link #unit}. */

@@ -100,7 +100,8 @@ final class SeriesPlanner {
       }
       unit = want;
     }
-    return new SeriesPlan(cube, w, region.label(), stat, statName(statistic), step, range[0], range[1], coveragePercent, factor, conv, unit, warnings);
+    return new SeriesPlan(cube, w, region.label(), stat, statName(statistic), step, range[0], range[1], coveragePercent, factor, conv, unit,
+        warnings, weights.model() == org.slackwater.core.region.AreaModel.SPHERE ? "sphere of radius 6371000 m" : "WGS84 ellipsoid");
   }
 
   /** A stored cube, or a derived variable defined earlier in the request. */

@@ -5,6 +5,7 @@ import java.util.Map;
 import java.util.Objects;
 import org.locationtech.jts.geom.Geometry;
 import org.slackwater.core.cube.LatLonGrid;
+import org.slackwater.core.region.AreaModel;
 import org.slackwater.core.region.CellWeights;
 import org.slackwater.core.region.RegionWeights;
 
@@ -18,10 +19,16 @@ public final class WeightsCache {
   private record Key(LatLonGrid grid, Geometry outline) {}
 
   private final int capacity;
+  private final AreaModel model;
   private final Map<Key, CellWeights> map;
 
   public WeightsCache(int capacity) {
+    this(capacity, AreaModel.SPHERE);
+  }
+
+  public WeightsCache(int capacity, AreaModel model) {
     this.capacity = capacity;
+    this.model = model;
     this.map = new LinkedHashMap<>(16, 0.75f, true) {
       private static final long serialVersionUID = 1L;
 
@@ -32,6 +39,10 @@ public final class WeightsCache {
     };
   }
 
+  public AreaModel model() {
+    return model;
+  }
+
   public CellWeights get(LatLonGrid grid, Geometry region) {
     Key key = new Key(Objects.requireNonNull(grid), region);
     synchronized (this) {
@@ -40,7 +51,7 @@ public final class WeightsCache {
         return w;
       }
     }
-    CellWeights w = RegionWeights.compute(grid, region);
+    CellWeights w = RegionWeights.compute(grid, region, model);
     synchronized (this) {
       map.put(key, w);
     }

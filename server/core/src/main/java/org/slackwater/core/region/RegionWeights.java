@@ -26,6 +26,11 @@ public final class RegionWeights {
   private RegionWeights() {}
 
   public static CellWeights compute(LatLonGrid grid, Geometry region) {
+    return compute(grid, region, AreaModel.SPHERE);
+  }
+
+  /** Weights with cell areas on the given figure of the Earth (see {@link AreaModel}). */
+  public static CellWeights compute(LatLonGrid grid, Geometry region, AreaModel model) {
     if (region.isEmpty()) {
       throw new RegionException("the region is empty");
     }
@@ -52,7 +57,8 @@ public final class RegionWeights {
           new org.locationtech.jts.geom.Coordinate(w, s), new org.locationtech.jts.geom.Coordinate(e, s),
           new org.locationtech.jts.geom.Coordinate(e, nN), new org.locationtech.jts.geom.Coordinate(w, nN),
           new org.locationtech.jts.geom.Coordinate(w, s)});
-        double full = SphericalArea.cell(s, nN, w, e);
+        double sphere = SphericalArea.cell(s, nN, w, e);
+        double full = model == AreaModel.SPHERE ? sphere : model.cell(s, nN, w, e);
         double inside;
         if (prepared.covers(cell)) {
           inside = full;
@@ -60,7 +66,7 @@ public final class RegionWeights {
           continue;
         } else {
           try {
-            inside = Math.min(full, SphericalArea.of(shape.intersection(cell)));
+            inside = Math.min(full, SphericalArea.of(shape.intersection(cell)) * (full / sphere));
           } catch (RuntimeException ex) {
             throw new RegionException("the region's outline could not be intersected with grid cell (row " + y
                 + ", column " + x + "): " + ex.getMessage() + "; check the polygon for self-intersections");
@@ -79,7 +85,13 @@ public final class RegionWeights {
       throw new RegionException("the region touches no cell of the grid " + grid
           + "; check that the region lies within the data's extent (coordinates are longitude, latitude)");
     }
-    return new CellWeights(nx, Arrays.copyOf(idx, n), Arrays.copyOf(area, n), Arrays.copyOf(frac, n), SphericalArea.of(region));
+    double regionArea = SphericalArea.of(region);
+    if (model != AreaModel.SPHERE) {
+      // The region's own area on the ellipsoid, by the same ratio at its centroid's latitude.
+      double lat = region.getCentroid().getY();
+      regionArea *= model.cell(lat - 0.05, lat + 0.05, 0, 1) / SphericalArea.cell(lat - 0.05, lat + 0.05, 0, 1);
+    }
+    return new CellWeights(nx, Arrays.copyOf(idx, n), Arrays.copyOf(area, n), Arrays.copyOf(frac, n), regionArea);
   }
 
   private static Geometry onGridLongitudes(LatLonGrid grid, Geometry region) {

@@ -33,6 +33,18 @@ class RegionWeightsTest {
   }
 
   @Test
+  void onTheEllipsoidWholeCellsWeighTheirEllipsoidalArea() throws Exception {
+    Geometry r = new WKTReader().read("POLYGON((-31.7 43.7, -31.2 43.7, -31.2 44.0, -31.7 44.0, -31.7 43.7))");
+    CellWeights w = RegionWeights.compute(grid, r, AreaModel.WGS84);
+    for (int i = 0; i < w.size(); i++) {
+      int y = w.row(i), x = w.column(i);
+      assertEquals(EllipsoidalArea.cell(grid.latLower(y), grid.latUpper(y), grid.lonLower(x), grid.lonUpper(x)), w.area(i), 1e-6);
+    }
+    // The region's area on the ellipsoid (GeographicLib agrees with EllipsoidalArea to 1e-7, EllipsoidalAreaTest).
+    assertEquals(EllipsoidalArea.cell(43.7, 44.0, -31.7, -31.2), w.regionAreaM2(), 1e-5 * w.regionAreaM2());
+  }
+
+  @Test
   void weightsSumToTheRegionAreaForAnIrregularPolygonInsideTheGrid() throws Exception {
     Geometry r = new WKTReader().read("POLYGON((-31.83 43.61, -30.27 43.72, -30.55 44.31, -31.12 44.43, -31.9 44.1, -31.83 43.61))");
     CellWeights w = RegionWeights.compute(grid, r);

@@ -1,0 +1,16 @@
+package org.slackwater.core.region;
+
+/**
+ * The figure of the Earth that cell areas are measured on. The sphere of radius 6,371,000 m is
+ * the usual choice for gridded products; WGS84 measures on the ellipsoid (authalic latitude).
+ * For a cell cut by a region the inside area is the spherical inside area times the cell's
+ * ellipsoid/sphere ratio; that ratio changes by under 1e-5 across a 0.1-degree cell.
+ */
+public enum AreaModel {
+  SPHERE, WGS84;
+
+  public double cell(double latSouth, double latNorth, double lonWest, double lonEast) {
+    return this == SPHERE ? SphericalArea.cell(latSouth, latNorth, lonWest, lonEast)
+        : EllipsoidalArea.cell(latSouth, latNorth, lonWest, lonEast);
+  }
+}
