@@ -158,7 +158,7 @@ public final class NetCdfCubeSource implements CubeSource {
 
     CubeDescriptor descriptor = new CubeDescriptor(v.getShortName(), standardName, longName, units.unit(), declared,
         grid, time.axis(), attributes);
-    return new NetCdfSourceCube(nc, v, where, descriptor, time.sourceIndices(), lat.fileIndex(), lon.fileIndex(), decoder);
+    return new NetCdfSourceCube(nc, file, v, where, descriptor, time.sourceIndices(), lat.fileIndex(), lon.fileIndex(), decoder);
   }
 
   private static AlignedTimeAxis time(Variable t) throws Problem, IOException {

@@ -1,34 +1,53 @@
 package org.slackwater.netcdf;
 
 import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.Objects;
 import org.slackwater.core.cube.CubeDescriptor;
 import org.slackwater.core.spi.SourceCube;
 import org.slackwater.core.spi.SourceException;
 import ucar.ma2.Array;
 import ucar.ma2.InvalidRangeException;
+import ucar.ma2.Section;
 import ucar.nc2.NetcdfFile;
 import ucar.nc2.Variable;
+import ucar.nc2.iosp.netcdf3.N3iosp;
 
 /**
  * One (time, lat, lon) variable of an open NetCDF file, delivered in the normalised orientation
  * and canonical unit of its descriptor.
  *
- * <p>Each {@link #read} fetches the file's bounding block of the request with one {@code
- * Variable.read(origin, shape)} per run of consecutive source time steps (chunked to bound memory),
- * then maps rows (latitude flip) and columns (longitude rotation) while decoding; the values pass
- * through NetCDF-Java once, as a primitive array. Not thread-safe.
+ * <p>Each {@link #read} fetches the file's bounding block of the request once per run of
+ * consecutive source time steps (chunked to bound memory), then maps rows (latitude flip) and
+ * columns (longitude rotation) while decoding. Not thread-safe.
+ *
+ * <p>How a block is fetched depends on the format. A netCDF-3 file (classic, 64-bit offset) stores
+ * values as big-endian bytes in row-major order, so the block's raw bytes are copied with {@code
+ * Variable.readToByteChannel} and converted with bulk {@code ByteBuffer} views ({@link RawBlock});
+ * NetCDF-Java's own {@code Variable.read} turns every value through a per-value
+ * {@code readShort()}/{@code readFloat()} call, which was a quarter of the ingest's CPU time. Any
+ * other format (netCDF-4/HDF5: chunked, maybe compressed) goes through {@code Variable.read}.
+ * NetCDF-Java's byte copy waits for every byte of the block, so on a file cut short after it was
+ * opened it would never return; each raw read therefore first checks that the file is still as
+ * long as when it was opened (a file cut between that check and the copy would still stall: input
+ * files are not expected to change while they are ingested).
  *
  * <p>Failure modes: a {@link SourceException} naming file and variable if the file cannot be read
- * (truncated, corrupt, gone); {@link IndexOutOfBoundsException} for a request outside the cube or a
- * {@code dest} that is too small.
+ * (truncated, corrupt, gone, or shorter than when it was opened); {@link IndexOutOfBoundsException}
+ * for a request outside the cube or a {@code dest} that is too small.
  */
 final class NetCdfSourceCube implements SourceCube {
 
-  /** Upper bound on the values fetched by one NetCDF-Java read (32 MB of floats). */
-  private static final int CHUNK_VALUES = 8 << 20;
+  /** Upper bound on the values fetched by one NetCDF-Java read (4 MB of floats: stays in cache). */
+  private static final int CHUNK_VALUES = 1 << 20;
 
   private final NetcdfFile file;
+  private final Path path;
+  /** The file's size when opened: NetCDF-Java checked then that it holds every value. */
+  private final long openedSize;
+  /** Non-null for a netCDF-3 file, whose raw bytes are read directly. */
+  private final RawBlock raw;
   private final Variable variable;
   private final String where;
   private final CubeDescriptor descriptor;
@@ -38,9 +57,12 @@ final class NetCdfSourceCube implements SourceCube {
   private final ValueDecoder decoder;
   private boolean closed;
 
-  NetCdfSourceCube(NetcdfFile file, Variable variable, String where, CubeDescriptor descriptor, int[] timeIndex,
-      int[] latIndex, int[] lonIndex, ValueDecoder decoder) {
+  NetCdfSourceCube(NetcdfFile file, Path path, Variable variable, String where, CubeDescriptor descriptor,
+      int[] timeIndex, int[] latIndex, int[] lonIndex, ValueDecoder decoder) throws IOException {
     this.file = Objects.requireNonNull(file);
+    this.path = Objects.requireNonNull(path);
+    this.openedSize = Files.size(path);
+    this.raw = file.getIosp() instanceof N3iosp ? RawBlock.of(variable.getDataType()) : null;
     this.variable = Objects.requireNonNull(variable);
     this.where = where;
     this.descriptor = descriptor;
@@ -126,6 +148,13 @@ final class NetCdfSourceCube implements SourceCube {
 
   private Object fetch(int t, int nt, int y, int ny, int x, int nx) throws SourceException {
     try {
+      if (raw != null) {
+        // See the class comment: NetCDF-Java's copy would spin forever on bytes a shrunk file lacks.
+        if (Files.size(path) < openedSize) {
+          throw new IOException("the file shrank from " + openedSize + " to " + Files.size(path) + " bytes while being read");
+        }
+        return raw.read(variable, new Section(new int[] {t, y, x}, new int[] {nt, ny, nx}));
+      }
       Array a = variable.read(new int[] {t, y, x}, new int[] {nt, ny, nx});
       return a.get1DJavaArray(a.getElementType());
     } catch (IOException | InvalidRangeException | RuntimeException e) {

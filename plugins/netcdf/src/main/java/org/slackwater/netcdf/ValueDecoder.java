@@ -22,7 +22,10 @@ import ucar.nc2.Variable;
  * </ul>
  *
  * <p>The loops are written per storage type, without boxing or allocation, because every value of
- * an ingest passes through them.
+ * an ingest passes through them. Bytes and shorts, whose every possible value fits a small table,
+ * are decoded by lookup in a table filled at construction with the per-value rule above (so the
+ * result is the same to the bit); the other types test the first two missing values from fields, not a loop,
+ * so the common case (a fill value, maybe one missing_value) stays a few compares.
  */
 final class ValueDecoder {
 
@@ -38,19 +41,41 @@ final class ValueDecoder {
   private final double addend;
   private final double validMin;
   private final double validMax;
-  private final double[] missing;
+  /** The first two missing values, NaN where absent (NaN equals nothing); the rest in {@link #moreMissing}. */
+  private final double missing0;
+  private final double missing1;
+  private final double[] moreMissing;
   private final boolean unsigned;
   private final String description;
+  /** Decoded value of every raw short (index: its 16 bits) for a short variable, else null. */
+  private final float[] shortTable;
+  /** Decoded value of every raw byte (index: its 8 bits) for a byte variable, else null. */
+  private final float[] byteTable;
 
-  private ValueDecoder(double multiplier, double addend, double validMin, double validMax, double[] missing,
-      boolean unsigned, String description) {
+  private ValueDecoder(DataType type, double multiplier, double addend, double validMin, double validMax,
+      double[] missing, boolean unsigned, String description) {
     this.multiplier = multiplier;
     this.addend = addend;
     this.validMin = validMin;
     this.validMax = validMax;
-    this.missing = missing.clone();
+    this.missing0 = missing.length > 0 ? missing[0] : Double.NaN;
+    this.missing1 = missing.length > 1 ? missing[1] : Double.NaN;
+    this.moreMissing = missing.length > 2 ? Arrays.copyOfRange(missing, 2, missing.length) : new double[0];
     this.unsigned = unsigned;
     this.description = description;
+    this.shortTable = type == DataType.SHORT ? table(1 << 16) : null;
+    this.byteTable = type == DataType.BYTE ? table(1 << 8) : null;
+  }
+
+  /** The decoded value of each raw pattern of a {@code size}-valued integer type (2^8 or 2^16). */
+  private float[] table(int size) {
+    float[] t = new float[size];
+    for (int raw = 0; raw < size; raw++) {
+      // Signed: the pattern's two's-complement value; unsigned: the pattern itself.
+      double p = unsigned ? raw : size == 1 << 16 ? (short) raw : (byte) raw;
+      t[raw] = decodeOne(p);
+    }
+    return t;
   }
 
   /**
@@ -93,7 +118,7 @@ final class ValueDecoder {
     if (scale != 1 || offset != 0) {
       desc.append(String.format(Locale.ROOT, "unpacked as packed * %s + %s (CF 8.1)", scale, offset));
     }
-    return new ValueDecoder(scale * units.scale(), offset * units.scale() + units.offset(), lo, hi, listed,
+    return new ValueDecoder(type, scale * units.scale(), offset * units.scale() + units.offset(), lo, hi, listed,
         v.isUnsigned(), desc.toString());
   }
 
@@ -149,10 +174,10 @@ final class ValueDecoder {
   }
 
   private boolean invalid(double p) {
-    if (p != p || p < validMin || p > validMax) {
+    if (p != p || p < validMin || p > validMax || p == missing0 || p == missing1) {
       return true;
     }
-    for (double m : missing) {
+    for (double m : moreMissing) {
       if (p == m) {
         return true;
       }
@@ -160,47 +185,47 @@ final class ValueDecoder {
     return false;
   }
 
+  /** The delivered value of one stored value (already widened, unsigned applied): the rule of this class. */
+  private float decodeOne(double p) {
+    return invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+  }
+
   private void floats(float[] s, int from, int step, int n, float[] dest, int at) {
     for (int i = 0, j = from; i < n; i++, j += step) {
-      double p = s[j];
-      dest[at + i] = invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+      dest[at + i] = decodeOne(s[j]);
     }
   }
 
   private void doubles(double[] s, int from, int step, int n, float[] dest, int at) {
     for (int i = 0, j = from; i < n; i++, j += step) {
-      double p = s[j];
-      dest[at + i] = invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+      dest[at + i] = decodeOne(s[j]);
     }
   }
 
   private void shorts(short[] s, int from, int step, int n, float[] dest, int at) {
-    int mask = unsigned ? 0xFFFF : -1;
+    float[] table = shortTable != null ? shortTable : table(1 << 16);
     for (int i = 0, j = from; i < n; i++, j += step) {
-      double p = unsigned ? (s[j] & mask) : s[j];
-      dest[at + i] = invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+      dest[at + i] = table[s[j] & 0xFFFF];
     }
   }
 
   private void ints(int[] s, int from, int step, int n, float[] dest, int at) {
     for (int i = 0, j = from; i < n; i++, j += step) {
-      double p = unsigned ? (s[j] & 0xFFFF_FFFFL) : s[j];
-      dest[at + i] = invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+      dest[at + i] = decodeOne(unsigned ? (s[j] & 0xFFFF_FFFFL) : s[j]);
     }
   }
 
   private void bytes(byte[] s, int from, int step, int n, float[] dest, int at) {
+    float[] table = byteTable != null ? byteTable : table(1 << 8);
     for (int i = 0, j = from; i < n; i++, j += step) {
-      double p = unsigned ? (s[j] & 0xFF) : s[j];
-      dest[at + i] = invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+      dest[at + i] = table[s[j] & 0xFF];
     }
   }
 
   private void longs(long[] s, int from, int step, int n, float[] dest, int at) {
     for (int i = 0, j = from; i < n; i++, j += step) {
       long raw = s[j];
-      double p = unsigned && raw < 0 ? raw + 0x1p64 : raw;
-      dest[at + i] = invalid(p) ? Float.NaN : (float) (p * multiplier + addend);
+      dest[at + i] = decodeOne(unsigned && raw < 0 ? raw + 0x1p64 : raw);
     }
   }
 }

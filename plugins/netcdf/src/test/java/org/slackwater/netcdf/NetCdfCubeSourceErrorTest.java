@@ -3,17 +3,22 @@ package org.slackwater.netcdf;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTimeoutPreemptively;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.slackwater.netcdf.ReferenceFiles.nc;
 
 import java.io.IOException;
+import java.nio.channels.FileChannel;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.time.Duration;
 import java.util.Arrays;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
+import org.slackwater.core.spi.SourceCube;
 import org.slackwater.core.spi.SourceException;
 
 /** Bad input: each failure is a SourceException naming file, variable, problem and fix. */
@@ -67,6 +72,24 @@ class NetCdfCubeSourceErrorTest {
     assertTrue(e.getMessage().endsWith("the file may be truncated or corrupt; write it again or fetch a fresh copy"),
         e.getMessage());
     assertThrows(SourceException.class, () -> source.variables(cut));
+  }
+
+  @Test
+  void aClassicFileCutShortWhileOpenIsAClearErrorNotAHang(@TempDir Path dir) throws Exception {
+    // The classic reader copies a block's raw bytes until it has them all; a file that shrank after
+    // it was opened must fail with the usual message instead of waiting for bytes that never come.
+    Path copy = Files.copy(nc("packed"), dir.resolve("packed.nc"));
+    try (SourceCube cube = source.open(copy, "temp")) {
+      try (FileChannel ch = FileChannel.open(copy, StandardOpenOption.WRITE)) {
+        ch.truncate(Files.size(copy) / 2);
+      }
+      SourceException e = assertTimeoutPreemptively(Duration.ofSeconds(30),
+          () -> assertThrows(SourceException.class, () -> ReferenceFiles.readAll(cube)));
+      assertTrue(e.getMessage().startsWith("file " + copy + ", variable temp: reading time steps 0..2 failed"), e.getMessage());
+      assertTrue(e.getMessage().contains("shrank"), e.getMessage());
+      assertTrue(e.getMessage().endsWith("the file may be truncated or corrupt; write it again or fetch a fresh copy"),
+          e.getMessage());
+    }
   }
 
   @Test

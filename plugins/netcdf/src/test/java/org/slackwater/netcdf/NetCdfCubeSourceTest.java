@@ -109,6 +109,35 @@ class NetCdfCubeSourceTest {
     }
   }
 
+  @ParameterizedTest
+  @ValueSource(strings = {"temp_b", "temp_i"})
+  void byteAndIntStorageIsUnpackedAsTheCdlSays(String variable) throws Exception {
+    // CF 8.1 unpacking and CF 2.5.1 validity (_FillValue, valid_min), applied by
+    // ReferenceFiles.expected to the values ncgen stored from storage_types.cdl.
+    Cdl cdl = cdl("storage_types");
+    try (SourceCube cube = source.open(nc("storage_types"), variable)) {
+      assertValues(cdl.var(variable), readAll(cube), 2, 3, 4, steps(2), NO_FLIP, NO_FLIP, SAME);
+    }
+  }
+
+  @Test
+  void byteAndIntExtremesByHand() throws Exception {
+    // From storage_types.cdl by hand, CF 8.1: -127 * 0.25 + 12 = -19.75; 127 * 0.25 + 12 = 43.75;
+    // 2147483647 * 1e-6 = 2147.483647; CF 2.5.1: -128 is the byte _FillValue, and -2000000001 lies
+    // below valid_min while -2000000000 does not.
+    try (SourceCube b = source.open(nc("storage_types"), "temp_b"); SourceCube i = source.open(nc("storage_types"), "temp_i")) {
+      float[] vb = readAll(b);
+      float[] vi = readAll(i);
+      assertEquals(-19.75f, vb[0], 0f);
+      assertEquals(43.75f, vb[4], 0f);
+      assertTrue(Float.isNaN(vb[5]));
+      assertEquals(2147.483647f, vi[4], 1e-4f);
+      assertEquals(-2000f, vi[6], 1e-4f);
+      assertTrue(Float.isNaN(vi[7]));
+      assertTrue(Float.isNaN(vi[12]), "-2147483648 is below valid_min");
+    }
+  }
+
   @Test
   void packedFillAndExtremesAreWhereTheCdlPutThem() throws Exception {
     // Spot checks by hand from packed.cdl, CF 8.1: 150 * 0.01 + 10 = 11.5; 32767 * 0.01 + 10 =

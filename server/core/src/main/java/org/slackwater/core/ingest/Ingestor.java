@@ -5,6 +5,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.BitSet;
 import java.util.List;
 import java.util.Locale;
@@ -31,6 +32,10 @@ import org.slackwater.core.store.CubeStore;
  * worth of steps by a tile's worth of rows, all columns), cuts the band into chunks, writes them
  * to a staging directory, then publishes (rename, then catalog commit). Any failure deletes the
  * staging directory and leaves the catalog and the previous version as they were.
+ *
+ * <p>Reading and writing overlap: this thread reads and decodes bands and records the footprint
+ * while the {@link ChunkWriter}'s threads encode and write the chunks already read, and the store
+ * forces written files to disk in the background; publishing waits for all of it.
  *
  * <p>All variables of a file are opened and checked before the first is written, so a file with
  * one bad variable changes nothing.
@@ -107,31 +112,39 @@ public final class Ingestor {
     if (nt == 0) {
       throw new IngestException("file " + label + ", variable " + d.variable() + ": the time axis is empty");
     }
-    List<ChunkRecord> chunks = new ArrayList<>();
-    long bytes = 0;
     int version = catalog.nextVersion(name);
     BitSet present = new BitSet(ny * nx);
-    try (CubeStore.Staging staging = store.stage(name)) {
-      float[] band = new float[Math.min(layout.steps(), nt) * Math.min(layout.rows(), ny) * nx];
+    int steps = Math.min(layout.steps(), nt);
+    int rows = Math.min(layout.rows(), ny);
+    // When a tile spans all columns the band already is the chunk, in the same (time, row, column)
+    // order, and is read straight into a writer buffer; otherwise tiles are cut from the band.
+    boolean tiled = nx > layout.columns();
+    List<ChunkRecord> chunks;
+    long bytes = 0;
+    try (CubeStore.Staging staging = store.stage(name);
+        ChunkWriter writer = new ChunkWriter(staging, steps * rows * (tiled ? layout.columns() : nx), name)) {
+      float[] band = tiled ? new float[steps * rows * nx] : null;
+      int[] todo = new int[rows * nx];
       for (int t0 = 0; t0 < nt; t0 += layout.steps()) {
         int ct = Math.min(layout.steps(), nt - t0);
         for (int y0 = 0; y0 < ny; y0 += layout.rows()) {
           int cy = Math.min(layout.rows(), ny - y0);
-          cube.read(t0, ct, y0, cy, 0, nx, band);
-          markPresent(band, ct, cy, nx, y0, present);
+          float[] target = tiled ? band : writer.buffer();
+          cube.read(t0, ct, y0, cy, 0, nx, target);
+          markPresent(target, ct, cy, nx, y0, todo, present);
+          if (!tiled) {
+            writer.write(new ChunkKey(t0, y0, 0, ct, cy, nx), target);
+            continue;
+          }
           for (int x0 = 0; x0 < nx; x0 += layout.columns()) {
             int cx = Math.min(layout.columns(), nx - x0);
-            float[] tile = new float[ct * cy * cx];
-            for (int t = 0; t < ct; t++) {
-              for (int y = 0; y < cy; y++) {
-                System.arraycopy(band, (t * cy + y) * nx + x0, tile, (t * cy + y) * cx, cx);
-              }
-            }
-            ChunkRecord rec = staging.write(new ChunkKey(t0, y0, x0, ct, cy, cx), tile);
-            bytes += rec.bytes();
-            chunks.add(rec);
+            writer.write(new ChunkKey(t0, y0, x0, ct, cy, cx), cut(band, ct, cy, nx, x0, cx, writer.buffer()));
           }
         }
+      }
+      chunks = writer.finish();
+      for (ChunkRecord rec : chunks) {
+        bytes += rec.bytes();
       }
       staging.publish(version);
       CubeEntry entry = new CubeEntry(name, version, d, layout, chunks, new Footprint(ny * nx, present),
@@ -152,22 +165,52 @@ public final class Ingestor {
     return new IngestReport(name, version, (long) nt * ny * nx, bytes, (System.nanoTime() - start) / 1e9);
   }
 
-  /** Sets the bit of every cell of the band that has a value at some step. */
-  private static void markPresent(float[] band, int nt, int ny, int nx, int y0, BitSet present) {
-    for (int y = 0; y < ny; y++) {
-      for (int x = 0; x < nx; x++) {
-        int cell = (y0 + y) * nx + x;
-        if (present.get(cell)) {
-          continue;
-        }
-        for (int t = 0; t < nt; t++) {
-          if (!Float.isNaN(band[(t * ny + y) * nx + x])) {
-            present.set(cell);
-            break;
-          }
-        }
+  /** Copies columns {@code [x0, x0+cx)} of every step and row of the band into {@code tile}. */
+  private static float[] cut(float[] band, int ct, int cy, int nx, int x0, int cx, float[] tile) {
+    for (int t = 0; t < ct; t++) {
+      for (int y = 0; y < cy; y++) {
+        System.arraycopy(band, (t * cy + y) * nx + x0, tile, (t * cy + y) * cx, cx);
       }
     }
+    return tile;
+  }
+
+  /**
+   * Sets the bit of every cell of the band that has a value at some step. Walks the band step by
+   * step over a shrinking list of cells not yet seen with a value: a cell leaves the list at its
+   * first value, so after a few steps only never-valid (land) cells are visited. Branch-free, as
+   * the gaps of cloudy data are too irregular for branch prediction.
+   */
+  private static void markPresent(float[] band, int nt, int ny, int nx, int y0, int[] todo, BitSet present) {
+    int cells = ny * nx;
+    int left = cells;
+    for (int c = 0; c < cells; c++) {
+      todo[c] = c;
+    }
+    for (int t = 0; t < nt && left > 0; t++) {
+      int base = t * cells;
+      int kept = 0;
+      for (int i = 0; i < left; i++) {
+        int c = todo[i];
+        todo[kept] = c;
+        kept += 1 - presentBit(band[base + c]);
+      }
+      left = kept;
+    }
+    // The cells still listed (in ascending order: the compaction keeps order) never had a value.
+    for (int c = 0, k = 0; c < cells; c++) {
+      if (k < left && todo[k] == c) {
+        k++;
+      } else {
+        present.set(y0 * nx + c);
+      }
+    }
+  }
+
+  /** 1 if {@code f} is a value, 0 if it is NaN (missing), without a branch. */
+  private static int presentBit(float f) {
+    // NaN is exactly the magnitudes above infinity's bit pattern 0x7f800000.
+    return ((Float.floatToRawIntBits(f) & 0x7fffffff) - 0x7f800001) >>> 31;
   }
 
   private static String cubeName(CubeDescriptor d, String label) throws IngestException {

@@ -17,6 +17,18 @@ public record ChunkKey(int t0, int y0, int x0, int nt, int ny, int nx) {
 
   /** File name inside a version directory, e.g. {@code t000365_y0064_x0000.arrow}. */
   public String fileName() {
-    return String.format("t%06d_y%04d_x%04d.arrow", t0, y0, x0);
+    // Same as String.format("t%06d_y%04d_x%04d.arrow", ...), without a Formatter per chunk.
+    StringBuilder b = new StringBuilder(32).append('t');
+    pad(b, t0, 6).append("_y");
+    pad(b, y0, 4).append("_x");
+    return pad(b, x0, 4).append(".arrow").toString();
+  }
+
+  private static StringBuilder pad(StringBuilder b, int value, int width) {
+    String digits = Integer.toString(value); // never negative: checked above
+    for (int i = digits.length(); i < width; i++) {
+      b.append('0');
+    }
+    return b.append(digits);
   }
 }

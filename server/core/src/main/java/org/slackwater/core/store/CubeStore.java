@@ -10,8 +10,10 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
 import java.util.Comparator;
+import java.util.Objects;
 import java.util.Set;
 import java.util.UUID;
+import java.util.concurrent.ConcurrentLinkedDeque;
 import java.util.stream.Stream;
 import org.apache.arrow.memory.BufferAllocator;
 
@@ -23,6 +25,12 @@ import org.apache.arrow.memory.BufferAllocator;
  * the caller commit the catalog row. A crash before the commit leaves a directory no catalog row
  * names, which {@link #removeUnreferenced} deletes at the next start; the previous version is
  * untouched throughout.
+ *
+ * <p>The fsync of each chunk file runs in the background ({@link BackgroundForce}) while later
+ * chunks are encoded, but {@link Staging#publish} first waits for every one of them and fails if
+ * any failed, and then fsyncs the staging directory itself; so at the rename, as before, every
+ * file and every directory entry of the version is on disk. The order on disk is therefore: all
+ * chunk files, the staging directory, the rename (parent directory), the catalog row.
  */
 public final class CubeStore {
 
@@ -111,23 +119,58 @@ public final class CubeStore {
     }
   }
 
-  /** A version being written. Not thread-safe. */
+  /**
+   * A version being written. {@link #write} may be called from several threads at once (chunks are
+   * independent files); {@link #publish} and {@link #close} are called by one thread after every
+   * {@code write} has returned to it (a {@code Future.get} or a join is enough).
+   */
   public final class Staging implements AutoCloseable {
     private final String cube;
     private final Path dir;
+    private final BackgroundForce force;
+    /** Encoders not in use; a writing thread takes one, so there are as many as concurrent writers. */
+    private final ConcurrentLinkedDeque<ChunkEncoder> encoders = new ConcurrentLinkedDeque<>();
     private boolean published;
 
     private Staging(String cube, Path dir) {
       this.cube = cube;
       this.dir = dir;
+      this.force = new BackgroundForce(cube);
     }
 
+    /**
+     * Writes one chunk file. It is on disk only once {@link #publish} has returned; a failure to
+     * force it surfaces from a later {@code write} or from {@code publish}.
+     */
     public ChunkRecord write(ChunkKey key, float[] values) throws IOException {
-      return ChunkCodec.write(allocator, dir.resolve(key.fileName()), key, values);
+      Path file = dir.resolve(key.fileName());
+      ChunkEncoder encoder = Objects.requireNonNullElseGet(encoders.poll(), () -> new ChunkEncoder(allocator));
+      try {
+        FileChannel ch = FileChannel.open(file, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
+        ChunkRecord rec;
+        try {
+          rec = encoder.write(ch, key.fileName(), key, values);
+        } catch (IOException | RuntimeException | Error e) {
+          try {
+            ch.close();
+          } catch (IOException closing) {
+            e.addSuppressed(closing);
+          }
+          throw e;
+        }
+        force.submit(ch, file);
+        return rec;
+      } finally {
+        encoders.push(encoder);
+      }
     }
 
-    /** Renames the staging directory to version {@code version}; the catalog commit must follow. */
+    /**
+     * Waits until every chunk file is on disk, fsyncs the staging directory, renames it to version
+     * {@code version} and fsyncs the parent; the catalog commit must follow.
+     */
     public Path publish(int version) throws IOException {
+      force.awaitAll();
       Path target = versionDir(cube, version);
       if (Files.exists(target)) {
         // Left over from a crash between rename and catalog commit: no row references it.
@@ -144,9 +187,13 @@ public final class CubeStore {
       return target;
     }
 
-    /** Deletes the staging directory unless it was published. */
+    /** Waits for outstanding background work, then deletes the staging directory unless it was published. */
     @Override
     public void close() throws IOException {
+      force.close();
+      for (ChunkEncoder e; (e = encoders.poll()) != null; ) {
+        e.close();
+      }
       if (!published) {
         deleteTree(dir);
       }

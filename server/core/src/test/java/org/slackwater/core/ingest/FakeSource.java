@@ -12,9 +12,10 @@ import org.slackwater.core.spi.SourceCube;
 import org.slackwater.core.spi.SourceException;
 
 /**
- * A source for tests: any file whose first line is {@code FAKE <variable> <ny> <nx> <nt> [fail-after-reads]}
+ * A source for tests: any file whose first line is {@code FAKE <variable> <ny> <nx> <nt> [fail-after-reads] [land]}
  * is a cube with value(t, y, x) = {@link #value}; every 7th cell-step is missing. With a
- * fail-after count the source throws on that read, to test that a failed ingest changes nothing.
+ * fail-after count the source throws on that read, to test that a failed ingest changes nothing;
+ * with {@code land}, the cells {@link #isLand} never hold a value.
  */
 public final class FakeSource implements CubeSource {
   public static final LatLonGrid GRID_ORIGIN = LatLonGrid.regular(43.5, -32, 0.1, 0.1, 1, 1);
@@ -26,12 +27,23 @@ public final class FakeSource implements CubeSource {
     return (float) (10 + Math.sin(t / 10.0) + 0.1 * y - 0.05 * x);
   }
 
+  /** Land cells of a {@code land} file: about one in five, scattered, never a value. */
+  public static boolean isLand(int y, int x) {
+    return (y * 3 + x) % 5 == 2;
+  }
+
   public static LatLonGrid grid(int ny, int nx) {
     return LatLonGrid.regular(43.5, -32, 0.1, 0.1, ny, nx);
   }
 
   public static Path write(Path file, String variable, int ny, int nx, int nt, int failAfter) throws java.io.IOException {
     Files.writeString(file, "FAKE " + variable + " " + ny + " " + nx + " " + nt + " " + failAfter + "\n");
+    return file;
+  }
+
+  /** A file whose {@link #isLand} cells never hold a value. */
+  public static Path writeWithLand(Path file, String variable, int ny, int nx, int nt) throws java.io.IOException {
+    Files.writeString(file, "FAKE " + variable + " " + ny + " " + nx + " " + nt + " 0 land\n");
     return file;
   }
 
@@ -62,6 +74,7 @@ public final class FakeSource implements CubeSource {
     }
     int ny = Integer.parseInt(h[2]), nx = Integer.parseInt(h[3]), nt = Integer.parseInt(h[4]);
     int failAfter = Integer.parseInt(h[5]);
+    boolean land = h.length > 6 && h[6].equals("land");
     long[] secs = new long[nt];
     long start = java.time.LocalDate.of(2014, 1, 1).toEpochDay() * 86400L;
     for (int t = 0; t < nt; t++) {
@@ -86,7 +99,7 @@ public final class FakeSource implements CubeSource {
         for (int t = t0; t < t0 + ntr; t++) {
           for (int y = y0; y < y0 + nyr; y++) {
             for (int x = x0; x < x0 + nxr; x++) {
-              dest[i++] = value(t, y, x);
+              dest[i++] = land && isLand(y, x) ? Float.NaN : value(t, y, x);
             }
           }
         }

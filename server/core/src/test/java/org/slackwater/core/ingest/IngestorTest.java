@@ -14,8 +14,10 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.slackwater.core.Workspace;
 import org.slackwater.core.catalog.CubeEntry;
+import org.slackwater.core.store.ChunkKey;
 import org.slackwater.core.store.ChunkLayout;
 import org.slackwater.core.store.ChunkRecord;
+import org.slackwater.core.store.CubeStore;
 
 class IngestorTest {
   @TempDir Path dir;
@@ -106,6 +108,73 @@ class IngestorTest {
       IngestException missing = assertThrows(IngestException.class, () -> ws.ingestor().ingest(dir.resolve("nope.nc"), Optional.empty()));
       assertEquals("file nope.nc does not exist or is not a regular file", missing.getMessage());
       assertTrue(ws.catalog().cubes().isEmpty());
+    }
+  }
+
+  @Test
+  void aTileAsWideAsTheGridIsWrittenStraightFromTheBand() throws Exception {
+    // 3 columns and a 3-column tile: each band is one chunk, read straight into a writer buffer.
+    Path f = FakeSource.write(dir.resolve("temp.fake"), "temp", 10, 3, 230, 0);
+    try (Workspace ws = open()) {
+      ws.ingestor().ingest(f, Optional.empty());
+      CubeEntry c = ws.catalog().cube("temp").orElseThrow();
+      // 3 time chunks (100, 100, 30 steps) x 3 row tiles (4, 4, 2 rows), one column tile each.
+      assertEquals(9, c.chunks().size());
+      assertChunksHold(ws, c, false);
+    }
+  }
+
+  @Test
+  void theFootprintIsTheCellsThatEverHoldAValue() throws Exception {
+    // Every 7th cell-step is missing everywhere, so water cells still have values; land cells none.
+    Path f = FakeSource.writeWithLand(dir.resolve("temp.fake"), "temp", 9, 7, 250);
+    try (Workspace ws = open()) {
+      ws.ingestor().ingest(f, Optional.empty());
+      CubeEntry c = ws.catalog().cube("temp").orElseThrow();
+      for (int y = 0; y < 9; y++) {
+        for (int x = 0; x < 7; x++) {
+          assertEquals(!FakeSource.isLand(y, x), c.footprint().contains(y * 7 + x), "cell y=" + y + " x=" + x);
+        }
+      }
+      assertChunksHold(ws, c, true);
+    }
+  }
+
+  @Test
+  void aChunkTheWriterCannotWriteFailsTheIngestAndLeavesNoFiles() throws Exception {
+    try (Workspace ws = open()) {
+      CubeStore.Staging staging = ws.store().stage("temp");
+      Path staged;
+      try (Stream<Path> s = Files.list(dir.resolve("store/cubes/temp"))) {
+        staged = s.findFirst().orElseThrow();
+      }
+      try (staging; ChunkWriter writer = new ChunkWriter(staging, 8, "temp")) {
+        writer.write(new ChunkKey(0, 0, 0, 2, 2, 2), writer.buffer());
+        // 27 values do not fit the 8-value buffer: the writer thread fails, and finish says so.
+        writer.write(new ChunkKey(2, 0, 0, 3, 3, 3), writer.buffer());
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, writer::finish);
+        assertTrue(e.getMessage().contains("needs 27 values, got 8"), e.getMessage());
+      }
+      assertFalse(Files.exists(staged), "the staging directory is deleted");
+    }
+  }
+
+  /** Every chunk of version 1 holds the source's values (with land cells missing if {@code land}). */
+  private static void assertChunksHold(Workspace ws, CubeEntry c, boolean land) throws Exception {
+    for (ChunkRecord ch : c.chunks()) {
+      float[] v = new float[ch.key().values()];
+      ws.store().read(c.name(), c.version(), ch, v);
+      int i = 0;
+      for (int t = 0; t < ch.key().nt(); t++) {
+        for (int y = 0; y < ch.key().ny(); y++) {
+          for (int x = 0; x < ch.key().nx(); x++) {
+            int gy = ch.key().y0() + y;
+            int gx = ch.key().x0() + x;
+            float want = land && FakeSource.isLand(gy, gx) ? Float.NaN : FakeSource.value(ch.key().t0() + t, gy, gx);
+            assertEquals(want, v[i++], 0f, ch.file() + " t=" + t + " y=" + y + " x=" + x);
+          }
+        }
+      }
     }
   }
 }
