@@ -85,7 +85,7 @@ public final class NetCdfCubeSource implements CubeSource {
         }
       }
       if (names.isEmpty()) {
-        throw new SourceException("file " + file + ": holds no gridded variable with a time axis"
+        throw new SourceException("file " + label(file) + ": holds no variable that can be read as a cube (a grid on 1-D latitude and longitude with a time axis)"
             + (reasons.isEmpty() ? "; it has no data variables" : " (" + String.join("; ", reasons) + ")"));
       }
       return List.copyOf(names);
@@ -97,7 +97,7 @@ public final class NetCdfCubeSource implements CubeSource {
   @Override
   public SourceCube open(Path file, String variable) throws SourceException {
     NetcdfFile nc = openFile(file);
-    String where = "file " + file + ", variable " + variable;
+    String where = "file " + label(file) + ", variable " + variable;
     try {
       Variable v = nc.findVariable(NetcdfFile.makeValidPathName(variable));
       if (v == null) {
@@ -112,7 +112,7 @@ public final class NetCdfCubeSource implements CubeSource {
       throw e;
     } catch (IOException | RuntimeException e) {
       closeQuietly(nc);
-      throw new SourceException(where + ": cannot be read (" + describe(e) + "); the file may be truncated or corrupt;"
+      throw new SourceException(where + ": cannot be read (" + describe(e, file) + "); the file may be truncated or corrupt;"
           + " write it again or fetch a fresh copy", e);
     }
   }
@@ -249,14 +249,14 @@ public final class NetCdfCubeSource implements CubeSource {
   /** Opens without enhancement; refuses files that do not start like NetCDF before NetCDF-Java sees them. */
   private static NetcdfFile openFile(Path file) throws SourceException {
     if (!Files.isRegularFile(file)) {
-      throw new SourceException("file " + file + ": does not exist or is not a regular file; check the path");
+      throw new SourceException("file " + label(file) + ": does not exist or is not a regular file; check the path");
     }
     byte[] head = NetCdfMagic.head(file);
     if (head == null) {
-      throw new SourceException("file " + file + ": cannot be read; check its permissions");
+      throw new SourceException("file " + label(file) + ": cannot be read; check its permissions");
     }
     if (!NetCdfMagic.matches(head)) {
-      throw new SourceException("file " + file + ": not a NetCDF file (it starts with " + NetCdfMagic.show(head)
+      throw new SourceException("file " + label(file) + ": not a NetCDF file (it starts with " + NetCdfMagic.show(head)
           + ", not 'CDF' or '\\211HDF'); give a NetCDF-3 or NetCDF-4 file");
     }
     try {
@@ -267,12 +267,32 @@ public final class NetCdfCubeSource implements CubeSource {
   }
 
   private static SourceException unreadable(Path file, Exception e) {
-    return new SourceException("file " + file + ": cannot be read as NetCDF (" + describe(e)
+    return new SourceException("file " + label(file) + ": cannot be read as NetCDF (" + describe(e, file)
         + "); the file may be truncated or corrupt; write it again or fetch a fresh copy", e);
   }
 
-  private static String describe(Exception e) {
-    return e.getMessage() == null || e.getMessage().isBlank() ? e.getClass().getSimpleName() : e.getMessage();
+  /** The file's name only: messages travel to HTTP clients, who must not learn the server's directories. */
+  static String label(Path file) {
+    return file.getFileName() == null ? file.toString() : file.getFileName().toString();
+  }
+
+  private static final java.util.regex.Pattern TRUNCATED =
+      java.util.regex.Pattern.compile(".*truncated calculated size= ?(\\d+) actual = ?(\\d+).*", java.util.regex.Pattern.DOTALL);
+
+  /** NetCDF-Java's failure in plain words, without class names or machine paths. */
+  static String describe(Exception e, Path file) {
+    String m = e.getMessage() == null ? "" : e.getMessage();
+    java.util.regex.Matcher t = TRUNCATED.matcher(m);
+    if (t.matches()) {
+      return "it is " + t.group(2) + " bytes long but its header describes " + t.group(1) + " bytes: it was cut short";
+    }
+    if (e instanceof java.io.EOFException) {
+      return "it ends before the data its header describes";
+    }
+    if (m.isBlank()) {
+      return "the NetCDF library gave no reason";
+    }
+    return m.replace(file.toAbsolutePath().toString(), label(file)).replace(file.toString(), label(file));
   }
 
   private static void putIfNotEmpty(Map<String, String> map, String key, String value) {

@@ -158,7 +158,8 @@ final class NetCdfSourceCube implements SourceCube {
       Array a = variable.read(new int[] {t, y, x}, new int[] {nt, ny, nx});
       return a.get1DJavaArray(a.getElementType());
     } catch (IOException | InvalidRangeException | RuntimeException e) {
-      throw new SourceException(where + ": reading time steps " + t + ".." + (t + nt - 1) + " failed (" + e
+      throw new SourceException(where + ": reading time steps " + t + ".." + (t + nt - 1) + " failed ("
+          + NetCdfCubeSource.describe(e, path)
           + "); the file may be truncated or corrupt; write it again or fetch a fresh copy", e);
     }
   }

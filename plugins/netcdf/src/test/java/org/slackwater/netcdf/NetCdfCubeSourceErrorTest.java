@@ -50,7 +50,7 @@ class NetCdfCubeSourceErrorTest {
   void notANetCdfFile(@TempDir Path dir) throws IOException {
     Path csv = Files.writeString(dir.resolve("harle_flow.nc"), "date,flow\n2020-01-01,12.5\n");
     SourceException e = openFails(csv, "flow");
-    assertEquals("file " + csv + ": not a NetCDF file (it starts with 'date', not 'CDF' or '\\211HDF'); give a"
+    assertEquals("file " + csv.getFileName() + ": not a NetCDF file (it starts with 'date', not 'CDF' or '\\211HDF'); give a"
         + " NetCDF-3 or NetCDF-4 file", e.getMessage());
     assertThrows(SourceException.class, () -> source.variables(csv));
   }
@@ -59,7 +59,7 @@ class NetCdfCubeSourceErrorTest {
   void missingFile(@TempDir Path dir) {
     Path absent = dir.resolve("absent.nc");
     SourceException e = openFails(absent, "temp");
-    assertEquals("file " + absent + ": does not exist or is not a regular file; check the path", e.getMessage());
+    assertEquals("file " + absent.getFileName() + ": does not exist or is not a regular file; check the path", e.getMessage());
   }
 
   @ParameterizedTest
@@ -68,7 +68,7 @@ class NetCdfCubeSourceErrorTest {
     byte[] whole = Files.readAllBytes(nc("packed"));
     Path cut = Files.write(dir.resolve("packed_cut.nc"), Arrays.copyOf(whole, keep));
     SourceException e = openFails(cut, "temp");
-    assertTrue(e.getMessage().startsWith("file " + cut + ": cannot be read as NetCDF ("), e.getMessage());
+    assertTrue(e.getMessage().startsWith("file " + cut.getFileName() + ": cannot be read as NetCDF ("), e.getMessage());
     assertTrue(e.getMessage().endsWith("the file may be truncated or corrupt; write it again or fetch a fresh copy"),
         e.getMessage());
     assertThrows(SourceException.class, () -> source.variables(cut));
@@ -85,7 +85,7 @@ class NetCdfCubeSourceErrorTest {
       }
       SourceException e = assertTimeoutPreemptively(Duration.ofSeconds(30),
           () -> assertThrows(SourceException.class, () -> ReferenceFiles.readAll(cube)));
-      assertTrue(e.getMessage().startsWith("file " + copy + ", variable temp: reading time steps 0..2 failed"), e.getMessage());
+      assertTrue(e.getMessage().startsWith("file " + copy.getFileName() + ", variable temp: reading time steps 0..2 failed"), e.getMessage());
       assertTrue(e.getMessage().contains("shrank"), e.getMessage());
       assertTrue(e.getMessage().endsWith("the file may be truncated or corrupt; write it again or fetch a fresh copy"),
           e.getMessage());
@@ -103,24 +103,24 @@ class NetCdfCubeSourceErrorTest {
   @Test
   void variableNotFoundListsTheAvailableOnes() {
     SourceException e = openFails(nc("missing_value"), "oxygen");
-    assertEquals("file " + nc("missing_value") + ", variable oxygen: no such variable; the file holds these gridded"
+    assertEquals("file " + nc("missing_value").getFileName() + ", variable oxygen: no such variable; the file holds these gridded"
         + " variables: chl, cover, turb", e.getMessage());
   }
 
   @Test
   void noTimeAxis() {
     SourceException e = openFails(nc("no_time"), "depth");
-    assertEquals("file " + nc("no_time") + ", variable depth: no time axis: none of its dimensions (lat, lon) has a time"
+    assertEquals("file " + nc("no_time").getFileName() + ", variable depth: no time axis: none of its dimensions (lat, lon) has a time"
         + " coordinate variable; add one with units such as 'days since 2000-01-01' (CF 4.4)", e.getMessage());
     SourceException list = assertThrows(SourceException.class, () -> source.variables(nc("no_time")));
-    assertTrue(list.getMessage().contains("holds no gridded variable with a time axis ('depth': no time axis"),
+    assertTrue(list.getMessage().contains("holds no variable that can be read as a cube (a grid on 1-D latitude and longitude with a time axis) ('depth': no time axis"),
         list.getMessage());
   }
 
   @Test
   void unknownCalendar() {
     SourceException e = openFails(nc("unknown_calendar"), "temp");
-    assertEquals("file " + nc("unknown_calendar") + ", variable temp: time variable 'time': calendar 'tidal_lunar' is not"
+    assertEquals("file " + nc("unknown_calendar").getFileName() + ", variable temp: time variable 'time': calendar 'tidal_lunar' is not"
         + " a CF calendar; use one of standard, proleptic_gregorian, julian, noleap, all_leap, 360_day, gregorian,"
         + " 365_day, 366_day (CF section 4.4.3)", e.getMessage());
   }
@@ -128,21 +128,21 @@ class NetCdfCubeSourceErrorTest {
   @Test
   void timeInMonthsIsRefused() {
     SourceException e = openFails(nc("bad_time_units"), "temp");
-    assertTrue(e.getMessage().startsWith("file " + nc("bad_time_units") + ", variable temp: time variable 'time': time"
+    assertTrue(e.getMessage().startsWith("file " + nc("bad_time_units").getFileName() + ", variable temp: time variable 'time': time"
         + " units 'months since 2010-01-01' use 'months', which is not a calendar unit"), e.getMessage());
   }
 
   @Test
   void unitsUdunitsCannotRead() {
     SourceException e = openFails(nc("bad_units"), "zz_var");
-    assertEquals("file " + nc("bad_units") + ", variable zz_var: units 'zz' are not understood; write a udunits string"
+    assertEquals("file " + nc("bad_units").getFileName() + ", variable zz_var: units 'zz' are not understood; write a udunits string"
         + " such as 'K' or 'mg m-3'", e.getMessage());
   }
 
   @Test
   void unitsThatDoNotFitTheStandardName() {
     SourceException e = openFails(nc("bad_units"), "temp_mg");
-    assertEquals("file " + nc("bad_units") + ", variable temp_mg: units 'mg m-3' do not fit standard_name"
+    assertEquals("file " + nc("bad_units").getFileName() + ", variable temp_mg: units 'mg m-3' do not fit standard_name"
         + " 'sea_water_temperature', which needs a temperature such as 'K' or 'degC'; correct the units or the"
         + " standard_name", e.getMessage());
   }
@@ -150,10 +150,10 @@ class NetCdfCubeSourceErrorTest {
   @Test
   void curvilinearGrid() {
     SourceException e = openFails(nc("curvilinear"), "temp");
-    assertEquals("file " + nc("curvilinear") + ", variable temp: curvilinear grids are not supported yet; regrid to a"
+    assertEquals("file " + nc("curvilinear").getFileName() + ", variable temp: curvilinear grids are not supported yet; regrid to a"
         + " regular lat/lon grid first (its coordinates 'lat', 'lon' are 2-D)", e.getMessage());
     SourceException list = assertThrows(SourceException.class, () -> source.variables(nc("curvilinear")));
-    assertEquals("file " + nc("curvilinear") + ": holds no gridded variable with a time axis ('temp': curvilinear grids"
+    assertEquals("file " + nc("curvilinear").getFileName() + ": holds no variable that can be read as a cube (a grid on 1-D latitude and longitude with a time axis) ('temp': curvilinear grids"
         + " are not supported yet; regrid to a regular lat/lon grid first (its coordinates 'lat', 'lon' are 2-D))",
         list.getMessage());
   }
@@ -161,7 +161,7 @@ class NetCdfCubeSourceErrorTest {
   @Test
   void wrongDimensionOrder() {
     SourceException e = openFails(nc("dim_order"), "temp");
-    assertEquals("file " + nc("dim_order") + ", variable temp: its dimensions are (time, lon, lat); only the order"
+    assertEquals("file " + nc("dim_order").getFileName() + ", variable temp: its dimensions are (time, lon, lat); only the order"
         + " (time, latitude, longitude) is supported, here (time, lat, lon); rewrite the variable with its dimensions"
         + " in that order", e.getMessage());
   }

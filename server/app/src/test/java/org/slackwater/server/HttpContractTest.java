@@ -145,6 +145,8 @@ class HttpContractTest {
     JsonNode p = problem(send(at("/api/cubes").header("Authorization", "Bearer s3cret")
         .POST(HttpRequest.BodyPublishers.ofString("{\"path\":\"notes.nc\"}"))), 422);
     assertTrue(p.get("detail").asText().startsWith("file notes.nc"), p.toString());
+    // Messages name the file, never the server's directories.
+    assertTrue(!p.toString().contains(ingestRoot.toString()), p.toString());
     assertEquals(before, ws.catalog().cubes().size());
     problem(send(at("/api/cubes").header("Authorization", "Bearer s3cret")
         .POST(HttpRequest.BodyPublishers.ofString("{\"path\":\"../etc/passwd\"}"))), 400);
