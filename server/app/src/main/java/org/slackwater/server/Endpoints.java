@@ -26,6 +26,8 @@ import org.slackwater.core.query.WatchStatements;
 import org.slackwater.core.region.GeoJsonRegions;
 import org.slackwater.core.region.Region;
 import org.slackwater.core.region.RegionException;
+import org.apache.arrow.memory.BufferAllocator;
+import org.slackwater.core.result.ArrowResultWriter;
 import org.slackwater.core.result.CsvWriter;
 import org.slackwater.core.result.JsonWriter;
 import org.slackwater.core.result.ResultTable;
@@ -70,15 +72,21 @@ final class Endpoints {
     }
     try {
       ByteArrayOutputStream out = new ByteArrayOutputStream();
-      if (format.get() == ResultFormat.CSV) {
-        // Definitions (let) report themselves in JSON; a CSV holds the one table the request computes.
+      if (format.get() != ResultFormat.JSON) {
+        // Definitions (let) report themselves in JSON; a CSV or Arrow stream holds the one table the request computes.
         List<ResultTable> computed = tables.stream().filter(t -> !t.metadata().containsKey("definition_only")).toList();
         if (computed.size() == 1) {
           tables = computed;
         }
         if (tables.size() != 1) {
-          return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "One table per CSV",
-              "the query has " + tables.size() + " statements but CSV holds one table; ask for ?format=json or send one statement");
+          return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "One table per " + format.get().name,
+              "the query has " + tables.size() + " statements but " + format.get().name + " holds one table; ask for ?format=json or send one statement");
+        }
+        if (format.get() == ResultFormat.ARROW) {
+          try (BufferAllocator a = workspace.allocator().newChildAllocator("result", 0, Long.MAX_VALUE)) {
+            ArrowResultWriter.write(tables.get(0), a, out);
+          }
+          return Reply.of(HttpResponseStatus.OK, ResultFormat.ARROW.mediaType, out.toByteArray());
         }
         CsvWriter.write(tables.get(0), new OutputStreamWriter(out, StandardCharsets.UTF_8));
         return Reply.of(HttpResponseStatus.OK, "text/csv; charset=utf-8; header=present", out.toByteArray());

@@ -9,7 +9,8 @@ import java.util.Optional;
  */
 enum ResultFormat {
   CSV("csv", "text/csv"),
-  JSON("json", "application/json");
+  JSON("json", "application/json"),
+  ARROW("arrow", "application/vnd.apache.arrow.stream");
 
   final String name;
   final String mediaType;
@@ -51,6 +52,6 @@ enum ResultFormat {
   }
 
   static String names() {
-    return "csv (text/csv), json (application/json)";
+    return "csv (text/csv), json (application/json), arrow (application/vnd.apache.arrow.stream)";
   }
 }

@@ -166,6 +166,34 @@ class EndToEndTest {
   }
 
   @Test
+  void arrowStreamsCarryTheSameValuesAsCsv() throws Exception {
+    String q = "mean chlorophyll over \"Outer Bay\" from 2014-05-01 to 2014-08-31 by day";
+    Map<LocalDate, Double> csv = column(post(q, "").body(), "mean_chlorophyll [mg m-3]");
+    HttpResponse<byte[]> r = HTTP.send(HttpRequest.newBuilder(URI.create(server.url() + "/api/query"))
+        .header("Accept", "application/vnd.apache.arrow.stream").POST(HttpRequest.BodyPublishers.ofString(q)).build(),
+        HttpResponse.BodyHandlers.ofByteArray());
+    assertEquals(200, r.statusCode());
+    assertEquals("application/vnd.apache.arrow.stream", r.headers().firstValue("content-type").orElse(""));
+    // Arrow's own stream reader is the reference for the format.
+    try (org.apache.arrow.memory.RootAllocator a = new org.apache.arrow.memory.RootAllocator();
+        org.apache.arrow.vector.ipc.ArrowStreamReader reader = new org.apache.arrow.vector.ipc.ArrowStreamReader(
+            new java.io.ByteArrayInputStream(r.body()), a)) {
+      var root = reader.getVectorSchemaRoot();
+      assertEquals("mg m-3", root.getSchema().findField("mean_chlorophyll").getMetadata().get("unit"));
+      int rows = 0;
+      while (reader.loadNextBatch()) {
+        var time = (org.apache.arrow.vector.DateDayVector) root.getVector("time");
+        var value = (org.apache.arrow.vector.Float8Vector) root.getVector("mean_chlorophyll");
+        for (int i = 0; i < root.getRowCount(); i++, rows++) {
+          double want = csv.get(LocalDate.ofEpochDay(time.get(i)));
+          assertEquals(want, value.isNull(i) ? Double.NaN : value.get(i), 0.0);
+        }
+      }
+      assertEquals(csv.size(), rows);
+    }
+  }
+
+  @Test
   void jsonResultsCarryUnitsAndMetadata() throws Exception {
     HttpResponse<String> r = post("mean rainfall over \"Harle Watershed\" during 2014 by month", "?format=json");
     assertEquals(200, r.statusCode(), r.body());
