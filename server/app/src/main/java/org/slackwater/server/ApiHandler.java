@@ -65,6 +65,12 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       }
       return endpoints.query(body, param(uri, "format"), req.headers().get(HttpHeaderNames.ACCEPT));
     }
+    if (path.equals("/api/matchups")) {
+      if (!m.equals(HttpMethod.POST)) {
+        return notAllowed("POST");
+      }
+      return endpoints.matchUps(body, param(uri, "variable"), param(uri, "window"), param(uri, "format"), req.headers().get(HttpHeaderNames.ACCEPT));
+    }
     if (path.equals("/api/cubes")) {
       if (m.equals(HttpMethod.GET)) {
         return endpoints.cubes();

@@ -70,19 +70,23 @@ final class Endpoints {
     } catch (QueryException e) {
       return Problem.query(e);
     }
+    return write(tables, format.get());
+  }
+
+  private Reply write(List<ResultTable> tables, ResultFormat format) {
     try {
       ByteArrayOutputStream out = new ByteArrayOutputStream();
-      if (format.get() != ResultFormat.JSON) {
+      if (format != ResultFormat.JSON) {
         // Definitions (let) report themselves in JSON; a CSV or Arrow stream holds the one table the request computes.
         List<ResultTable> computed = tables.stream().filter(t -> !t.metadata().containsKey("definition_only")).toList();
         if (computed.size() == 1) {
           tables = computed;
         }
         if (tables.size() != 1) {
-          return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "One table per " + format.get().name,
-              "the query has " + tables.size() + " statements but " + format.get().name + " holds one table; ask for ?format=json or send one statement");
+          return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "One table per " + format.name,
+              "the query has " + tables.size() + " statements but " + format.name + " holds one table; ask for ?format=json or send one statement");
         }
-        if (format.get() == ResultFormat.ARROW) {
+        if (format == ResultFormat.ARROW) {
           try (BufferAllocator a = workspace.allocator().newChildAllocator("result", 0, Long.MAX_VALUE)) {
             ArrowResultWriter.write(tables.get(0), a, out);
           }
@@ -91,11 +95,32 @@ final class Endpoints {
         CsvWriter.write(tables.get(0), new OutputStreamWriter(out, StandardCharsets.UTF_8));
         return Reply.of(HttpResponseStatus.OK, "text/csv; charset=utf-8; header=present", out.toByteArray());
       }
-      JsonWriter.write(tables, List.of(), out);
+      // Watch checks (and, later, alerts) carry a caution; JSON puts it beside the results too.
+      JsonWriter.write(tables, tables.stream().map(t -> t.metadata().get("caution")).filter(java.util.Objects::nonNull).distinct().toList(), out);
       return Reply.of(HttpResponseStatus.OK, JSON_TYPE, out.toByteArray());
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
+  }
+
+  /** Station samples (CSV body) against a cube; the result format follows the same rules as queries. */
+  Reply matchUps(String body, String variable, String window, String formatParam, String accept) {
+    Optional<ResultFormat> format = ResultFormat.choose(formatParam, accept);
+    if (format.isEmpty()) {
+      return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "No such result format", "results come as " + ResultFormat.names());
+    }
+    if (variable == null || variable.isBlank()) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "Which variable?", "add ?variable=NAME, e.g. ?variable=chlorophyll");
+    }
+    ResultTable t;
+    try {
+      t = workspace.engine().matchUps(variable, body, window == null ? 0 : Integer.parseInt(window));
+    } catch (NumberFormatException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The match-up request is not valid", "window must be a whole number of days");
+    } catch (IllegalArgumentException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The match-up request is not valid", e.getMessage());
+    }
+    return write(List.of(t), format.get());
   }
 
   Reply cubes() {

@@ -193,6 +193,73 @@ class EndToEndTest {
     }
   }
 
+  /**
+   * Match-ups against an independent pairing: each sample's cell found from the file's own bounds
+   * variables, the value read with NetCDF-Java on the sample's date, bias and RMSE by their
+   * definitions, r by Hipparchus' PearsonsCorrelation.
+   */
+  @Test
+  void matchUpsOfStationSamplesAgreeWithAnIndependentPairing() throws Exception {
+    String csv = java.nio.file.Files.readString(demo.manifest.stations());
+    HttpResponse<String> r = HTTP.send(HttpRequest.newBuilder(URI.create(server.url() + "/api/matchups?variable=chlorophyll&format=json"))
+        .POST(HttpRequest.BodyPublishers.ofString(csv)).build(), HttpResponse.BodyHandlers.ofString());
+    assertEquals(200, r.statusCode(), r.body());
+    JsonNode rows = new ObjectMapper().readTree(r.body()).get("results").get(0).get("rows");
+    JsonNode all = rows.get(rows.size() - 1);
+    assertEquals("all", all.get(0).asText());
+
+    java.util.List<double[]> pairs = new java.util.ArrayList<>();
+    try (ucar.nc2.NetcdfFile f = ucar.nc2.NetcdfFile.open(demo.manifest.dir().resolve("chlorophyll.nc").toString())) {
+      double[] latB = (double[]) f.findVariable("lat_bnds").read().get1DJavaArray(double.class);
+      double[] lonB = (double[]) f.findVariable("lon_bnds").read().get1DJavaArray(double.class);
+      double[] time = (double[]) f.findVariable("time").read().get1DJavaArray(double.class);
+      ucar.nc2.Variable v = f.findVariable("chlorophyll");
+      double fill = v.findAttribute("_FillValue").getNumericValue().doubleValue();
+      LocalDate ref = LocalDate.of(2006, 1, 1); // "hours since 2006-01-01 12:00:00"
+      for (String line : csv.split("\n")) {
+        String[] p = line.split(",");
+        if (p.length < 7 || !p[4].equals("chlorophyll")) {
+          continue;
+        }
+        double lon = Double.parseDouble(p[1]), lat = Double.parseDouble(p[2]);
+        LocalDate d = LocalDate.parse(p[3].substring(0, 10));
+        int y = -1, x = -1;
+        for (int i = 0; i < latB.length / 2; i++) {
+          if (lat >= Math.min(latB[2 * i], latB[2 * i + 1]) && lat < Math.max(latB[2 * i], latB[2 * i + 1])) y = i;
+        }
+        for (int i = 0; i < lonB.length / 2; i++) {
+          if (lon >= Math.min(lonB[2 * i], lonB[2 * i + 1]) && lon < Math.max(lonB[2 * i], lonB[2 * i + 1])) x = i;
+        }
+        int t = -1;
+        for (int i = 0; i < time.length; i++) {
+          if (ref.plusDays((long) Math.floor((time[i] + 12) / 24.0)).equals(d)) t = i;
+        }
+        if (y < 0 || x < 0 || t < 0) {
+          continue;
+        }
+        double c = v.read(new int[] {t, y, x}, new int[] {1, 1, 1}).getDouble(0);
+        if (c != fill && !Double.isNaN(c)) {
+          pairs.add(new double[] {Double.parseDouble(p[5]), c});
+        }
+      }
+    }
+    double bias = 0, sq = 0;
+    double[] a = new double[pairs.size()], b = new double[pairs.size()];
+    for (int i = 0; i < pairs.size(); i++) {
+      double diff = pairs.get(i)[1] - pairs.get(i)[0];
+      bias += diff;
+      sq += diff * diff;
+      a[i] = pairs.get(i)[0];
+      b[i] = pairs.get(i)[1];
+    }
+    int n = pairs.size();
+    assertTrue(n > 50, "pairs " + n);
+    assertEquals(n, all.get(2).asInt());
+    assertEquals(bias / n, all.get(3).asDouble(), 1e-6);
+    assertEquals(Math.sqrt(sq / n), all.get(4).asDouble(), 1e-6);
+    assertEquals(new org.hipparchus.stat.correlation.PearsonsCorrelation().correlation(a, b), all.get(5).asDouble(), 1e-9);
+  }
+
   @Test
   void jsonResultsCarryUnitsAndMetadata() throws Exception {
     HttpResponse<String> r = post("mean rainfall over \"Harle Watershed\" during 2014 by month", "?format=json");

@@ -57,6 +57,49 @@ public final class QueryEngine {
     return out;
   }
 
+  /**
+   * Station grab samples (CSV) against a cube: per station and overall n, bias, RMSE and r (see
+   * {@link org.slackwater.core.analytics.MatchUps}).
+   *
+   * @throws IllegalArgumentException for an unknown variable or a bad row (the message names it)
+   */
+  public ResultTable matchUps(String variable, String csv, int windowDays) {
+    var cube = catalog.cube(variable).orElseThrow(() -> new IllegalArgumentException("there is no variable '" + variable + "'"));
+    if (windowDays < 0 || windowDays > 30) {
+      throw new IllegalArgumentException("window must be 0 to 30 days, was " + windowDays);
+    }
+    var samples = org.slackwater.core.analytics.MatchUps.parse(csv, variable, cube.descriptor().units());
+    try {
+      var stats = org.slackwater.core.analytics.MatchUps.compute(cache, cube, samples, windowDays);
+      int n = stats.size();
+      String[] station = new String[n];
+      long[] count = new long[n], matched = new long[n];
+      double[] bias = new double[n], rmse = new double[n], r = new double[n], ms = new double[n], mc = new double[n];
+      for (int i = 0; i < n; i++) {
+        var st = stats.get(i);
+        station[i] = st.station();
+        count[i] = st.samples();
+        matched[i] = st.n();
+        bias[i] = st.bias();
+        rmse[i] = st.rmse();
+        r[i] = st.r();
+        ms[i] = st.meanSample();
+        mc[i] = st.meanCube();
+      }
+      String u = cube.descriptor().units();
+      return new ResultTable("match-ups of " + variable + " with station samples", List.of(
+          new org.slackwater.core.result.Column.Strings("station", station), new org.slackwater.core.result.Column.Longs("samples", "", count),
+          new org.slackwater.core.result.Column.Longs("n", "", matched), new org.slackwater.core.result.Column.Doubles("bias", u, bias),
+          new org.slackwater.core.result.Column.Doubles("rmse", u, rmse), new org.slackwater.core.result.Column.Doubles("r", "1", r),
+          new org.slackwater.core.result.Column.Doubles("mean_sample", u, ms), new org.slackwater.core.result.Column.Doubles("mean_cube", u, mc)),
+          java.util.Map.of("variable", variable, "cube_version", Integer.toString(cube.version()),
+              "pairing", "the cell containing the station, on the sample's UTC date" + (windowDays > 0 ? " +/- " + windowDays + " days (mean)" : ""),
+              "bias", "mean(cube - sample)"), List.of());
+    } catch (IOException e) {
+      throw new UncheckedIOException("reading the data store failed: " + e.getMessage(), e);
+    }
+  }
+
   /** A watch definition that passed its checks: its name, canonical text and description. */
   public record CheckedWatch(String name, String text, ResultTable description) {}
 
