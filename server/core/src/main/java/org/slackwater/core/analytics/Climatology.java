@@ -2,7 +2,6 @@ package org.slackwater.core.analytics;
 
 import java.time.LocalDate;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -25,29 +24,11 @@ public final class Climatology {
   public static final int DEFAULT_DAY_WINDOW = 15;
 
   private final TemporalStep step;
-  private final double[][] sorted;
-  private final double[] mean;
-  private final double[] sd;
+  private final BaselineStats[] classes;
 
-  private Climatology(TemporalStep step, double[][] sorted) {
+  private Climatology(TemporalStep step, BaselineStats[] classes) {
     this.step = step;
-    this.sorted = sorted;
-    this.mean = new double[sorted.length];
-    this.sd = new double[sorted.length];
-    for (int c = 0; c < sorted.length; c++) {
-      double[] v = sorted[c];
-      double m = 0;
-      for (double x : v) {
-        m += x;
-      }
-      m = v.length > 0 ? m / v.length : Double.NaN;
-      double ss = 0;
-      for (double x : v) {
-        ss += (x - m) * (x - m);
-      }
-      mean[c] = m;
-      sd[c] = v.length > 1 ? Math.sqrt(ss / (v.length - 1)) : Double.NaN;
-    }
+    this.classes = classes;
   }
 
   public static Climatology of(StepSeries baseline, int dayWindow) {
@@ -71,11 +52,11 @@ public final class Climatology {
         pools.get(c).add(v);
       }
     }
-    double[][] sorted = new double[classes][];
+    BaselineStats[] stats = new BaselineStats[classes];
     for (int c = 0; c < classes; c++) {
-      sorted[c] = pools.get(c).stream().mapToDouble(Double::doubleValue).sorted().toArray();
+      stats[c] = BaselineStats.of(pools.get(c).stream().mapToDouble(Double::doubleValue).toArray());
     }
-    return new Climatology(step, sorted);
+    return new Climatology(step, stats);
   }
 
   /** The class of the period starting on {@code start}: 0-based (see {@link PeriodOfYear}). */
@@ -88,54 +69,26 @@ public final class Climatology {
   }
 
   public double mean(LocalDate start) {
-    return mean[classOf(step, start)];
+    return classes[classOf(step, start)].mean();
   }
 
   public double sd(LocalDate start) {
-    return sd[classOf(step, start)];
+    return classes[classOf(step, start)].sd();
   }
 
   public int n(LocalDate start) {
-    return sorted[classOf(step, start)].length;
+    return classes[classOf(step, start)].n();
   }
 
   public double anomaly(LocalDate start, double v) {
-    return v - mean(start);
+    return classes[classOf(step, start)].anomaly(v);
   }
 
   public double standardizedAnomaly(LocalDate start, double v) {
-    double s = sd(start);
-    return s > 0 ? (v - mean(start)) / s : Double.NaN;
+    return classes[classOf(step, start)].standardizedAnomaly(v);
   }
 
   public double percentileRank(LocalDate start, double v) {
-    double[] s = sorted[classOf(step, start)];
-    if (s.length == 0 || Double.isNaN(v)) {
-      return Double.NaN;
-    }
-    int below = lowerBound(s, v), upTo = upperBound(s, v);
-    return 100.0 * (below + 0.5 * (upTo - below)) / s.length;
-  }
-
-  private static int lowerBound(double[] s, double v) {
-    int i = Arrays.binarySearch(s, v);
-    if (i < 0) {
-      return -i - 1;
-    }
-    while (i > 0 && s[i - 1] == v) {
-      i--;
-    }
-    return i;
-  }
-
-  private static int upperBound(double[] s, double v) {
-    int i = Arrays.binarySearch(s, v);
-    if (i < 0) {
-      return -i - 1;
-    }
-    while (i < s.length && s[i] == v) {
-      i++;
-    }
-    return i;
+    return classes[classOf(step, start)].percentileRank(v);
   }
 }

@@ -208,7 +208,7 @@ final class DriverStatements {
   }
 
   /** Series steps per lag unit (positive), or minus the lag units per step when a step holds several (days on a weekly series). */
-  private static int stepsPer(DurationUnit unit, TemporalStep step, Node at, String source) {
+  static int stepsPer(DurationUnit unit, TemporalStep step, Node at, String source) {
     int r = switch (step) {
       case DAY -> unit == DurationUnit.DAY ? 1 : unit == DurationUnit.WEEK ? 7 : 0;
       case WEEK -> unit == DurationUnit.WEEK ? 1 : unit == DurationUnit.DAY ? -7 : 0;

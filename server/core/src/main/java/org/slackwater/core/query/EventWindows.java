@@ -3,10 +3,10 @@ package org.slackwater.core.query;
 import java.io.IOException;
 import java.time.LocalDate;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.slackwater.core.analytics.BaselineStats;
 import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.StepSeries;
 import org.slackwater.core.result.Column;
@@ -51,19 +51,7 @@ final class EventWindows {
             base.add(v);
           }
         }
-        double[] b = base.stream().mapToDouble(Double::doubleValue).sorted().toArray();
-        double mean = Arrays.stream(b).average().orElse(Double.NaN);
-        double ss = 0;
-        for (double x : b) {
-          ss += (x - mean) * (x - mean);
-        }
-        double sd = b.length > 1 ? Math.sqrt(ss / (b.length - 1)) : Double.NaN;
-        double below = 0, equal = 0;
-        for (double x : b) {
-          if (x < value) below++;
-          else if (x == value) equal++;
-        }
-        double pct = b.length > 0 && !Double.isNaN(value) ? 100 * (below + 0.5 * equal) / b.length : Double.NaN;
+        BaselineStats b = BaselineStats.of(base.stream().mapToDouble(Double::doubleValue).toArray());
         eventCol.add(e);
         startCol.add(e.minusDays(days));
         endCol.add(e.minusDays(1));
@@ -71,8 +59,8 @@ final class EventWindows {
         regionCol.add(d.region());
         unitCol.add(d.unit());
         statCol.add(d.statistic() + (d.total() ? " (window total)" : " (window mean)"));
-        numbers.add(new double[] {value, mean, sd, value - mean, sd > 0 ? (value - mean) / sd : Double.NaN, pct});
-        yearsCol.add((long) b.length);
+        numbers.add(new double[] {value, b.mean(), b.sd(), b.anomaly(value), b.standardizedAnomaly(value), b.percentileRank(value)});
+        yearsCol.add((long) b.n());
       }
     }
     int n = eventCol.size();

@@ -3,12 +3,12 @@ package org.slackwater.core.query;
 import java.io.IOException;
 import java.time.LocalDate;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import org.slackwater.core.analytics.BaselineStats;
 import org.slackwater.core.analytics.CellStatistics;
 import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.analytics.IntegralUnits;
@@ -143,32 +143,18 @@ final class MapStatements {
       long[] n = new long[m];
       for (int i = 0; i < m; i++) {
         double[] b = new double[years.size()];
-        int k = 0;
-        for (double[][] y : years) {
-          if (!Double.isNaN(y[i][0])) {
-            b[k++] = y[i][0];
-          }
+        for (int k = 0; k < b.length; k++) {
+          b[k] = years.get(k)[i][0];
         }
-        b = Arrays.copyOf(b, k);
-        Arrays.sort(b);
-        double mu = Arrays.stream(b).average().orElse(Double.NaN);
-        double ss = 0;
-        for (double x : b) {
-          ss += (x - mu) * (x - mu);
-        }
-        mean[i] = mu;
-        sd[i] = k > 1 ? Math.sqrt(ss / (k - 1)) : Double.NaN;
-        n[i] = k;
+        BaselineStats st = BaselineStats.of(b);
+        mean[i] = st.mean();
+        sd[i] = st.sd();
+        n[i] = st.n();
         double v = main[i][0];
-        double below = 0, equal = 0;
-        for (double x : b) {
-          if (x < v) below++;
-          else if (x == v) equal++;
-        }
         value[i] = switch (p.comparison().get()) {
-          case ANOMALY -> v - mu;
-          case STANDARDIZED_ANOMALY -> sd[i] > 0 ? (v - mu) / sd[i] : Double.NaN;
-          case PERCENTILE_RANK -> k > 0 && !Double.isNaN(v) ? 100 * (below + 0.5 * equal) / k : Double.NaN;
+          case ANOMALY -> st.anomaly(v);
+          case STANDARDIZED_ANOMALY -> st.standardizedAnomaly(v);
+          case PERCENTILE_RANK -> st.percentileRank(v);
         };
       }
       ComparisonKind kind = p.comparison().get();

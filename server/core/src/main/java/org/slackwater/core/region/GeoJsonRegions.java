@@ -30,16 +30,7 @@ public final class GeoJsonRegions {
   private GeoJsonRegions() {}
 
   public static List<Region> parse(String text) {
-    JsonNode root;
-    try {
-      root = JSON.readTree(text);
-    } catch (JsonProcessingException e) {
-      throw new RegionException("not valid JSON at line " + e.getLocation().getLineNr() + ", column "
-          + e.getLocation().getColumnNr() + ": " + e.getOriginalMessage());
-    }
-    if (root == null || !root.isObject()) {
-      throw new RegionException("expected a GeoJSON FeatureCollection or Feature object");
-    }
+    JsonNode root = object(text, "expected a GeoJSON FeatureCollection or Feature object");
     String type = root.path("type").asText("");
     List<Region> out = new ArrayList<>();
     switch (type) {
@@ -60,6 +51,15 @@ public final class GeoJsonRegions {
 
   /** Parses one Feature, or a bare geometry, naming it {@code name} (used by {@code PUT /api/regions/{name}}). */
   public static Region parseNamed(String name, String text) {
+    JsonNode root = object(text, "expected a GeoJSON Feature or geometry object");
+    if ("Feature".equals(root.path("type").asText())) {
+      return feature(root, "the feature", name);
+    }
+    return new Region(name, "custom", geometry(root, JSON.createObjectNode(), "the geometry"), root.toString());
+  }
+
+  /** The text as a JSON object, or a RegionException saying where the JSON is broken. */
+  private static JsonNode object(String text, String notAnObject) {
     JsonNode root;
     try {
       root = JSON.readTree(text);
@@ -68,12 +68,9 @@ public final class GeoJsonRegions {
           + e.getLocation().getColumnNr() + ": " + e.getOriginalMessage());
     }
     if (root == null || !root.isObject()) {
-      throw new RegionException("expected a GeoJSON Feature or geometry object");
+      throw new RegionException(notAnObject);
     }
-    if ("Feature".equals(root.path("type").asText())) {
-      return feature(root, "the feature", name);
-    }
-    return new Region(name, "custom", geometry(root, JSON.createObjectNode(), "the geometry"), root.toString());
+    return root;
   }
 
   private static Region feature(JsonNode f, String where, String forcedName) {
