@@ -32,8 +32,10 @@ import org.slackwater.query.ast.LagRange;
 import org.slackwater.query.ast.ListRegions;
 import org.slackwater.query.ast.ListVariables;
 import org.slackwater.query.ast.NamedRegion;
+import org.slackwater.query.ast.Node;
 import org.slackwater.query.ast.PartialDate;
 import org.slackwater.query.ast.Period;
+import org.slackwater.query.ast.Position;
 import org.slackwater.query.ast.Script;
 import org.slackwater.query.ast.SeriesTerm;
 import org.slackwater.query.ast.Statement;
@@ -43,10 +45,13 @@ import org.slackwater.query.ast.Watch;
 /**
  * The language reference cannot drift from the parser: every {@code swq} block of README.md
  * parses, holds only statements the server runs (area series, catalog questions, correlate,
- * rank drivers, window) and uses only the demo scenario's names and years, with lag ranges
- * small enough for the server's documentation test to stay fast; every example of the
- * statements being built parses, prints back and uses only demo names; and every error
- * example gives the documented message.
+ * rank drivers, window, maps other than correlation maps, let and watch) and uses only the demo
+ * scenario's names and years, with lag ranges small enough for the server's documentation test
+ * to stay fast; the one statement still being built (the correlation map) is fenced as text,
+ * parses, prints back and uses only demo names; every error example of the parser gives the
+ * documented message; and every example of the errors the server finds against the data is
+ * valid syntax, with its documented position at a node of the tree, so that only the server
+ * can be the one refusing it.
  */
 class ReadmeTest {
 
@@ -58,7 +63,16 @@ class ReadmeTest {
     private static final LocalDate DATA_END = LocalDate.of(2025, 12, 31);
     /** The statements the server executes, the only ones a swq block may hold. */
     private static final Set<Class<?>> RUNNABLE = Set.of(AreaSeries.class, DescribeVariable.class,
-            ListVariables.class, ListRegions.class, Correlation.class, DriverRanking.class, EventWindow.class);
+            ListVariables.class, ListRegions.class, Correlation.class, DriverRanking.class, EventWindow.class,
+            StatisticMap.class, DifferenceMap.class, ComparisonMap.class, DerivedVariable.class, Watch.class);
+    /** The statements that parse but that the server refuses as not run yet. */
+    private static final Set<Class<?>> BEING_BUILT = Set.of(CorrelationMap.class);
+    /** Must stand verbatim in the watch section: every watch answer of the server carries it (WatchStatements.CAUTION). */
+    static final String CAUTION = "Screening aid only: built from remote-sensing and model data, which can be wrong. "
+            + "Confirm with water sampling, and follow local drinking-water regulations and licensed operators before acting.";
+    private static final String DATA_ERRORS = "### Errors found against the data";
+    private static final java.util.regex.Pattern DOCUMENTED_ERROR =
+            java.util.regex.Pattern.compile("line (\\d+):(\\d+): \\S.*");
     /** At most 27 lags (0 to 26 weeks) in one swq example, reaching at most 26 weeks or 6 months. */
     private static final int MAX_LAGS = 27;
     private static final int MAX_LAG_DAYS = 6 * 31;
@@ -67,11 +81,23 @@ class ReadmeTest {
         return blocks("swq");
     }
 
+    /** The error examples the parser gives: every text block with "=>" outside the server's errors. */
     static List<String> errorExamples() throws IOException {
         List<String> examples = new ArrayList<>();
-        for (String block : blocks("text")) {
-            if (block.contains("\n=> ")) {
-                examples.add(block);
+        for (Block block : fenced("text")) {
+            if (block.text().contains("\n=> ") && !block.subsection().equals(DATA_ERRORS)) {
+                examples.add(block.text());
+            }
+        }
+        return examples;
+    }
+
+    /** The error examples the server gives when it checks a query against the data. */
+    static List<String> dataErrorExamples() throws IOException {
+        List<String> examples = new ArrayList<>();
+        for (Block block : fenced("text")) {
+            if (block.text().contains("\n=> ") && block.subsection().equals(DATA_ERRORS)) {
+                examples.add(block.text());
             }
         }
         return examples;
@@ -92,6 +118,7 @@ class ReadmeTest {
     void readmeHasExamplesOfEveryKind() throws IOException {
         assertTrue(swqBlocks().size() >= 25, "swq examples");
         assertTrue(errorExamples().size() >= 30, "error examples");
+        assertTrue(dataErrorExamples().size() >= 10, "examples of errors found against the data");
         Set<Class<?>> runnable = new java.util.HashSet<>();
         boolean within = false;
         for (String block : swqBlocks()) {
@@ -105,13 +132,12 @@ class ReadmeTest {
         for (String block : statementsBeingBuilt()) {
             QueryParser.parse(block).statements().forEach(st -> beingBuilt.add(st.getClass()));
         }
-        assertTrue(beingBuilt.containsAll(Set.of(StatisticMap.class, DifferenceMap.class, ComparisonMap.class,
-                CorrelationMap.class, Watch.class, DerivedVariable.class)), beingBuilt.toString());
+        assertEquals(BEING_BUILT, beingBuilt);
     }
 
     @Test
     void swqBlocksHoldOnlyStatementsTheServerRuns() throws IOException {
-        // The server's documentation test runs every swq block; maps, watches and lets it cannot run yet.
+        // The server's documentation test runs every swq block; a correlation map it refuses as not run yet.
         for (String block : swqBlocks()) {
             for (Statement statement : QueryParser.parse(block).statements()) {
                 assertTrue(RUNNABLE.contains(statement.getClass()), block);
@@ -120,10 +146,22 @@ class ReadmeTest {
     }
 
     @Test
+    void watchSectionRepeatsTheCautionAndSaysHowWatchesAreStored() throws IOException {
+        String section = section("## Watches");
+        assertTrue(section.contains(CAUTION), "the caution, verbatim");
+        for (String endpoint : List.of("POST /api/watches", "GET /api/watches", "DELETE /api/watches/{name}")) {
+            assertTrue(section.contains(endpoint), endpoint);
+        }
+        // The section's examples are checked (swq), not merely shown.
+        assertTrue(blocks("swq", "## Watches").size() >= 3);
+    }
+
+    @Test
     void everyOtherTextBlockIsAnErrorExampleOrAStatementBeingBuilt() throws IOException {
         // A runnable example fenced as text would escape the server's documentation test.
         List<String> other = new ArrayList<>(blocks("text"));
         other.removeAll(errorExamples());
+        other.removeAll(dataErrorExamples());
         other.removeAll(statementsBeingBuilt());
         assertEquals(List.of(), other);
     }
@@ -132,14 +170,40 @@ class ReadmeTest {
     @MethodSource("statementsBeingBuilt")
     void statementBeingBuiltParsesPrintsBackAndUsesTheDemoScenario(String block) {
         Script script = QueryParser.parse(block);
+        checkNames(script, withLetNames(script), block);
+        assertEquals(AstPositions.erase(script), AstPositions.erase(QueryParser.parse(QueryPrinter.print(script))));
+    }
+
+    @ParameterizedTest
+    @MethodSource("dataErrorExamples")
+    void dataErrorExampleIsValidSyntaxWithThePositionOfANode(String block) {
+        int arrow = block.indexOf("\n=> ");
+        String query = block.substring(0, arrow);
+        String[] expected = block.substring(arrow + 4).split("\n");
+        // Parsing must succeed: a syntax error here would be reported by the parser, not the server.
+        Script script = QueryParser.parse(query);
+        checkNames(script, withLetNames(script), block);
+        java.util.regex.Matcher m = DOCUMENTED_ERROR.matcher(expected[0]);
+        assertTrue(m.matches(), expected[0]);
+        // The server reports its errors at a node (QueryException.at), so the position is a node's.
+        Position documented = new Position(Integer.parseInt(m.group(1)), Integer.parseInt(m.group(2)));
+        assertTrue(nodes(script, Node.class).stream().anyMatch(n -> n.position().equals(documented)),
+                "no node starts at " + documented + " in " + query);
+        assertTrue(expected.length <= 2, block);
+        if (expected.length == 2) {
+            assertTrue(expected[1].startsWith("  hint: ") && expected[1].length() > 8, expected[1]);
+        }
+    }
+
+    /** The demo's variables and the names the script's lets define. */
+    private static Set<String> withLetNames(Script script) {
         Set<String> variables = new java.util.HashSet<>(DEMO_VARIABLES);
         for (Statement statement : script.statements()) {
             if (statement instanceof DerivedVariable) {
                 variables.add(((DerivedVariable) statement).name().name());
             }
         }
-        checkNames(script, variables, block);
-        assertEquals(AstPositions.erase(script), AstPositions.erase(QueryParser.parse(QueryPrinter.print(script))));
+        return variables;
     }
 
     /** Every variable and named region of the tree is one of the demo's (or defined by a let). */
@@ -183,7 +247,11 @@ class ReadmeTest {
     void swqBlockParsesAndUsesOnlyTheDemoScenario(String block) {
         Script script = QueryParser.parse(block);
         assertFalse(script.statements().isEmpty());
-        checkNames(script, DEMO_VARIABLES, block);
+        // The server refuses a let that reuses a stored variable's name.
+        for (DerivedVariable let : nodes(script, DerivedVariable.class)) {
+            assertFalse(DEMO_VARIABLES.contains(let.name().name()), block);
+        }
+        checkNames(script, withLetNames(script), block);
         // Periods, baselines and events all lie in the data, and so does the window before an event.
         for (Period period : nodes(script, Period.class)) {
             checkWithinData(period, block);
@@ -238,6 +306,9 @@ class ReadmeTest {
         assertFalse(period.endInclusive().isAfter(DATA_END), block);
     }
 
+    /** A fenced block: its contents and the headings ("## ...", "### ...") it stands under. */
+    private record Block(String section, String subsection, String text) {}
+
     /** The contents of the fenced blocks with the given info string, in order. */
     private static List<String> blocks(String info) throws IOException {
         return blocks(info, null);
@@ -245,26 +316,60 @@ class ReadmeTest {
 
     /** The same, only within the section of that heading when one is given. */
     private static List<String> blocks(String info, String section) throws IOException {
-        List<String> lines = Files.readAllLines(Path.of("README.md"), StandardCharsets.UTF_8);
-        List<String> blocks = new ArrayList<>();
+        List<String> texts = new ArrayList<>();
+        for (Block block : fenced(info)) {
+            if (section == null || block.section().equals(section)) {
+                texts.add(block.text());
+            }
+        }
+        return texts;
+    }
+
+    /** The fenced blocks with the given info string, in order, with their headings. */
+    private static List<Block> fenced(String info) throws IOException {
+        List<Block> blocks = new ArrayList<>();
         StringBuilder current = null;
-        boolean inSection = section == null;
-        for (String line : lines) {
-            if (section != null && current == null && line.startsWith("## ")) {
-                inSection = line.equals(section);
-            }
-            if (!inSection) {
-                continue;
-            }
-            if (current == null && line.equals("```" + info)) {
+        String section = "";
+        String subsection = "";
+        for (String line : readme()) {
+            if (current == null && line.startsWith("## ")) {
+                section = line;
+                subsection = "";
+            } else if (current == null && line.startsWith("### ")) {
+                subsection = line;
+            } else if (current == null && line.equals("```" + info)) {
                 current = new StringBuilder();
             } else if (current != null && line.equals("```")) {
-                blocks.add(current.toString().stripTrailing());
+                blocks.add(new Block(section, subsection, current.toString().stripTrailing()));
                 current = null;
             } else if (current != null) {
                 current.append(line).append('\n');
             }
         }
         return blocks;
+    }
+
+    /** The text of one "## " section, up to the next. */
+    private static String section(String heading) throws IOException {
+        StringBuilder text = new StringBuilder();
+        boolean in = false;
+        boolean fence = false;
+        for (String line : readme()) {
+            if (!fence && line.startsWith("## ")) {
+                in = line.equals(heading);
+            }
+            if (line.startsWith("```")) {
+                fence = !fence;
+            }
+            if (in) {
+                text.append(line).append('\n');
+            }
+        }
+        assertFalse(text.length() == 0, "no section " + heading);
+        return text.toString();
+    }
+
+    private static List<String> readme() throws IOException {
+        return Files.readAllLines(Path.of("README.md"), StandardCharsets.UTF_8);
     }
 }

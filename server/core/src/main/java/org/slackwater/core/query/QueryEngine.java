@@ -111,7 +111,7 @@ public final class QueryEngine {
     Script script = QueryParser.parse(text);
     if (script.statements().size() != 1 || !(script.statements().get(0) instanceof Watch w)) {
       throw QueryException.at(script.statements().isEmpty() ? script : script.statements().get(0), text,
-          "send exactly one watch definition", "e.g. watch \"North Intake bloom\" over \"North Intake\" when mean chlorophyll above 10 mg m-3 for 3 days");
+          "send exactly one watch definition", "e.g. watch \"North Intake bloom\" over \"North Intake\" when mean chlorophyll above 10 mg/m3 for 3 days");
     }
     DerivedVariables derived = new DerivedVariables(catalog, text);
     ResultTable d = WatchStatements.check(w, new SeriesPlanner(catalog, weights, text, derived));

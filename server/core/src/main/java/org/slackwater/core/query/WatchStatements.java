@@ -51,9 +51,12 @@ public final class WatchStatements {
       severity.add(r.severity().name().toLowerCase(Locale.ROOT));
       condition.add(QueryPrinter.print(new Watch(w.name(), w.region(), List.of(r), w.position())).replaceFirst("(?s)^.*? when ", "when "));
     }
+    String[] caution = new String[rule.size()];
+    java.util.Arrays.fill(caution, CAUTION);
+    // The caution is a column too, so that it travels in CSV and Arrow as well as in JSON.
     return new ResultTable("watch \"" + w.name() + "\" (checked, not stored)", List.of(
         new Column.Strings("rule", rule.toArray(String[]::new)), new Column.Strings("severity", severity.toArray(String[]::new)),
-        new Column.Strings("condition", condition.toArray(String[]::new))),
+        new Column.Strings("condition", condition.toArray(String[]::new)), new Column.Strings("caution", caution)),
         Map.of("watch", w.name(), "region", QueryPrinter.print(w.region()), "caution", CAUTION),
         List.of("store a watch with POST /api/watches (admin token); this query only checks it", CAUTION));
   }
@@ -84,8 +87,13 @@ public final class WatchStatements {
     Period all = new Period(PartialDate.ofDay(t.date(0).getYear(), t.date(0).getMonthValue(), t.date(0).getDayOfMonth(), s.position()),
         PartialDate.ofDay(t.date(t.size() - 1).getYear(), t.date(t.size() - 1).getMonthValue(), t.date(t.size() - 1).getDayOfMonth(), s.position()),
         s.position());
-    return planner.plan(s.statistic(), s.variable(), s.region().orElse(w.region()), all, StepKind.DAY, Optional.empty(),
+    String unit = planner.plan(s.statistic(), s.variable(), s.region().orElse(w.region()), all, StepKind.DAY, Optional.empty(),
         SeriesPlanner.DEFAULT_COVERAGE_PERCENT).unit();
+    // A sum over a window of days is a total over that window: the daily rate times days (m3/day -> m3).
+    if (s.window().isPresent() && s.statistic().kind() == org.slackwater.query.ast.StatisticKind.SUM) {
+      unit = org.slackwater.core.analytics.IntegralUnits.times(unit, "day").unit();
+    }
+    return unit;
   }
 
   private static void threshold(Threshold th, String unit, SeriesPlanner planner, boolean needsUnit) {
