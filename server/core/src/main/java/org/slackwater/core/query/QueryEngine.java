@@ -153,7 +153,9 @@ public final class QueryEngine {
         plans.add(WatchStatements.check(w, planner));
       } else if (s instanceof DerivedVariable d) {
         plans.add(derived.define(d));
-      } else if (s instanceof MapStatement m && !(s instanceof CorrelationMap)) {
+      } else if (s instanceof CorrelationMap c) {
+        plans.add(CorrelationMapStatement.analyze(c, planner, new MapStatements.RegionResolverFactory(new RegionResolver(catalog, text), weights)));
+      } else if (s instanceof MapStatement m) {
         plans.add(MapStatements.analyze(m, planner, new MapStatements.RegionResolverFactory(new RegionResolver(catalog, text), weights)));
       } else {
         throw QueryException.at(s, text, "this kind of statement is understood but not run by this server version yet",
@@ -182,6 +184,13 @@ public final class QueryEngine {
       }
       if (plan instanceof MapStatements.Plan p) {
         return MapStatements.execute(p, cache, text);
+      }
+      if (plan instanceof CorrelationMapStatement.Plan p) {
+        try {
+          return CorrelationMapStatement.execute(p, cache, text);
+        } catch (org.slackwater.core.analytics.correlation.CorrelationInputException e) {
+          throw QueryException.at(p.query(), text, e.getMessage(), "");
+        }
       }
       CatalogStatements cat = new CatalogStatements(catalog, text);
       if (plan instanceof ListVariables) {
