@@ -4,7 +4,7 @@ package org.slackwater.core.region;
  * Cell areas on the WGS84 ellipsoid through the authalic (equal-area) latitude: the area between
  * two parallels and two meridians is a² Δλ [q(φ₂) − q(φ₁)] / 2 with
  * q(φ) = (1 − e²) [sin φ / (1 − e² sin² φ) − (1 / 2e) ln((1 − e sin φ) / (1 + e sin φ))]
- * (Snyder 1987, Map Projections — A Working Manual, USGS Professional Paper 1395, eq. 3-12).
+ * (Snyder 1987, Map Projections — A Working Manual, eq. 3-12).
  *
  * <p>For weights within a small region the sphere ({@link SphericalArea}) differs from this by a
  * nearly constant factor, so area means barely change; area integrals (sums) change by up to
