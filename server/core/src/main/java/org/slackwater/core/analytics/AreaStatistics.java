@@ -129,17 +129,7 @@ public final class AreaStatistics {
       area[j] = weights.area(i);
     }
     int[] runStart = new int[m], runFirst = new int[m], runLen = new int[m];
-    int runs = 0;
-    for (int j = 0; j < m; j++) {
-      if (runs > 0 && offset[j] == runStart[runs - 1] + runLen[runs - 1]) {
-        runLen[runs - 1]++;
-      } else {
-        runStart[runs] = offset[j];
-        runFirst[runs] = j;
-        runLen[runs] = 1;
-        runs++;
-      }
-    }
+    int runs = OffsetRuns.cut(offset, m, runStart, runFirst, runLen);
     for (int t = t0; t < t1; t++) {
       int base = (t - k.t0()) * plane;
       int s = t - from;

@@ -67,17 +67,7 @@ final class TileBand {
    * {@code runFirst} and {@code runLen} are scratch of at least count.
    */
   void copy(int[] offset, int count, float[] out, int[] runStart, int[] runFirst, int[] runLen) {
-    int runs = 0;
-    for (int j = 0; j < count; j++) {
-      if (runs > 0 && offset[j] == runStart[runs - 1] + runLen[runs - 1]) {
-        runLen[runs - 1]++;
-      } else {
-        runStart[runs] = offset[j];
-        runFirst[runs] = j;
-        runLen[runs] = 1;
-        runs++;
-      }
-    }
+    int runs = OffsetRuns.cut(offset, count, runStart, runFirst, runLen);
     int steps = chunkOf.length;
     // Blocks of BLOCK steps x BLOCK cells: each block reads BLOCK cache lines and writes BLOCK, on
     // at most 2 x BLOCK memory pages, so neither the cache nor the address translation thrashes.

@@ -17,7 +17,6 @@ import org.slackwater.core.analytics.correlation.LagRow;
 import org.slackwater.core.catalog.CubeEntry;
 import org.slackwater.core.cube.LatLonGrid;
 import org.slackwater.core.region.CellWeights;
-import org.slackwater.core.region.RegionException;
 import org.slackwater.core.result.Column;
 import org.slackwater.core.result.ResultTable;
 import org.slackwater.query.QueryException;
@@ -35,29 +34,17 @@ final class CorrelationMapStatement {
   record Plan(CorrelationMap query, CubeEntry cube, CellWeights weights, String regionLabel, int[] range, TemporalStep step,
       SeriesPlan driver, CorrelationSettings settings, Optional<Deseasonalize> deseasonalize, List<String> warnings) {}
 
-  static Plan analyze(CorrelationMap q, SeriesPlanner planner, MapStatements.RegionResolverFactory regions) {
+  static Plan analyze(CorrelationMap q, SeriesPlanner planner) {
     CubeEntry cube = planner.cube(q.values().variable());
-    RegionResolver.Resolved region = regions.resolver().resolve(q.region());
-    CellWeights w;
-    try {
-      w = regions.weights().get(cube.descriptor().grid(), region.geometry());
-    } catch (RegionException e) {
-      throw QueryException.at(q.region(), planner.source(), region.label() + ": " + e.getMessage(), "");
-    }
+    SeriesPlanner.OnGrid on = planner.onGrid(cube, q.region());
+    RegionResolver.Resolved region = on.region();
+    CellWeights w = on.weights();
     List<String> warnings = new ArrayList<>();
     int[] range = planner.range(cube.descriptor().time(), q.period(), cube.name(), warnings);
     SeriesPlan driver = planner.plan(q.driver().statistic(), q.driver().variable(), q.driverRegion(), q.period(), q.step().kind(),
         Optional.empty(), SeriesPlanner.DEFAULT_COVERAGE_PERCENT);
     TemporalStep step = driver.step();
-    int lag = 0;
-    if (q.lag().isPresent()) {
-      int per = DriverStatements.stepsPer(q.lag().get().unit(), step, q.lag().get(), planner.source());
-      int amount = q.lag().get().amount();
-      if (per < 0 && amount % -per != 0) {
-        throw QueryException.at(q.lag().get(), planner.source(), "a lag must be whole " + SeriesPlanner.stepName(step) + "s of the series", "");
-      }
-      lag = per > 0 ? amount * per : amount / -per;
-    }
+    int lag = q.lag().map(d -> DriverStatements.inSteps(d.amount(), d.unit(), step, d, planner.source())).orElse(0);
     CorrelationMethod m = q.method() == org.slackwater.query.ast.CorrelationMethod.SPEARMAN ? CorrelationMethod.SPEARMAN : CorrelationMethod.PEARSON;
     CorrelationSettings settings = CorrelationSettings.of(m, lag, lag, 1, DriverStatements.ALPHA);
     Optional<Deseasonalize> ds = q.deseasonalized().map(d -> d.baseline()

@@ -198,17 +198,25 @@ final class DriverStatements {
       return CorrelationSettings.of(m, 0, 0, 1, ALPHA);
     }
     LagRange l = lags.get();
-    int per = stepsPer(l.unit(), step, l, source);
-    int div = per < 0 ? -per : 1, mul = per > 0 ? per : 1;
-    if (per < 0 && (l.first() % div != 0 || l.last() % div != 0 || l.step() % div != 0)) {
-      throw QueryException.at(l, source, "lags must be whole " + SeriesPlanner.stepName(step) + "s of the series",
+    return CorrelationSettings.of(m, inSteps(l.first(), l.unit(), step, l, source), inSteps(l.last(), l.unit(), step, l, source),
+        Math.max(1, inSteps(l.step(), l.unit(), step, l, source)), ALPHA);
+  }
+
+  /** A lag of {@code amount} time units in steps of a series by {@code step}; it must be whole steps. */
+  static int inSteps(int amount, DurationUnit unit, TemporalStep step, Node at, String source) {
+    int per = stepsPer(unit, step, at, source);
+    if (per > 0) {
+      return amount * per;
+    }
+    if (amount % -per != 0) {
+      throw QueryException.at(at, source, "lags must be whole " + SeriesPlanner.stepName(step) + "s of the series",
           "on a " + SeriesPlanner.stepName(step) + "ly series give lags in " + SeriesPlanner.stepName(step) + "s");
     }
-    return CorrelationSettings.of(m, l.first() * mul / div, l.last() * mul / div, Math.max(1, l.step() * mul / div), ALPHA);
+    return amount / -per;
   }
 
   /** Series steps per lag unit (positive), or minus the lag units per step when a step holds several (days on a weekly series). */
-  static int stepsPer(DurationUnit unit, TemporalStep step, Node at, String source) {
+  private static int stepsPer(DurationUnit unit, TemporalStep step, Node at, String source) {
     int r = switch (step) {
       case DAY -> unit == DurationUnit.DAY ? 1 : unit == DurationUnit.WEEK ? 7 : 0;
       case WEEK -> unit == DurationUnit.WEEK ? 1 : unit == DurationUnit.DAY ? -7 : 0;

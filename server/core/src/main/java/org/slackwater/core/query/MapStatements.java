@@ -18,7 +18,6 @@ import org.slackwater.core.catalog.CubeEntry;
 import org.slackwater.core.cube.LatLonGrid;
 import org.slackwater.core.cube.TimeAxis;
 import org.slackwater.core.region.CellWeights;
-import org.slackwater.core.region.RegionException;
 import org.slackwater.core.result.Column;
 import org.slackwater.core.result.ResultTable;
 import org.slackwater.query.QueryException;
@@ -46,17 +45,13 @@ final class MapStatements {
       int[] range, Optional<int[]> reference, Optional<ComparisonKind> comparison, List<int[]> baselineYears,
       double factor, UnitConversion conversion, String unit, List<String> warnings) {}
 
-  static Plan analyze(MapStatement q, SeriesPlanner planner, RegionResolverFactory regions) {
+  static Plan analyze(MapStatement q, SeriesPlanner planner) {
     SeriesTerm term = q instanceof StatisticMap s ? s.values() : q instanceof DifferenceMap d ? d.values() : ((ComparisonMap) q).values();
     Optional<UnitRef> unitRef = q instanceof StatisticMap s ? s.unit() : q instanceof DifferenceMap d ? d.unit() : ((ComparisonMap) q).unit();
     CubeEntry cube = planner.cube(term.variable());
-    RegionResolver.Resolved region = regions.resolver().resolve(q.region());
-    CellWeights w;
-    try {
-      w = regions.weights().get(cube.descriptor().grid(), region.geometry());
-    } catch (RegionException e) {
-      throw QueryException.at(q.region(), planner.source(), region.label() + ": " + e.getMessage(), "");
-    }
+    SeriesPlanner.OnGrid on = planner.onGrid(cube, q.region());
+    RegionResolver.Resolved region = on.region();
+    CellWeights w = on.weights();
     List<String> warnings = new ArrayList<>();
     TimeAxis time = cube.descriptor().time();
     int[] range = planner.range(time, q.period(), cube.name(), warnings);
@@ -212,7 +207,4 @@ final class MapStatements {
     }
     return out;
   }
-
-  /** What map analysis needs from the engine besides the planner. */
-  record RegionResolverFactory(RegionResolver resolver, WeightsCache weights) {}
 }

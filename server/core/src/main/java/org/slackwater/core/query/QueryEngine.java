@@ -154,9 +154,9 @@ public final class QueryEngine {
       } else if (s instanceof DerivedVariable d) {
         plans.add(derived.define(d));
       } else if (s instanceof CorrelationMap c) {
-        plans.add(CorrelationMapStatement.analyze(c, planner, new MapStatements.RegionResolverFactory(new RegionResolver(catalog, text), weights)));
+        plans.add(CorrelationMapStatement.analyze(c, planner));
       } else if (s instanceof MapStatement m) {
-        plans.add(MapStatements.analyze(m, planner, new MapStatements.RegionResolverFactory(new RegionResolver(catalog, text), weights)));
+        plans.add(MapStatements.analyze(m, planner));
       } else {
         throw QueryException.at(s, text, "this kind of statement is understood but not run by this server version yet",
             "see 'Statements being built' in the language reference");

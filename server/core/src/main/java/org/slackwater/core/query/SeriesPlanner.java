@@ -56,13 +56,9 @@ final class SeriesPlanner {
       Optional<UnitRef> unitRef, double coveragePercent) {
     CubeEntry cube = cube(variable);
     List<String> warnings = new ArrayList<>();
-    RegionResolver.Resolved region = new RegionResolver(catalog, source).resolve(regionRef);
-    CellWeights w;
-    try {
-      w = weights.get(cube.descriptor().grid(), region.geometry());
-    } catch (RegionException e) {
-      throw QueryException.at(regionRef, source, region.label() + ": " + e.getMessage(), "");
-    }
+    OnGrid on = onGrid(cube, regionRef);
+    RegionResolver.Resolved region = on.region();
+    CellWeights w = on.weights();
     if (!hasData(w, cube)) {
       throw QueryException.at(regionRef, source, "no cell of " + cube.name() + " inside " + region.label()
           + " ever holds a value (all are fill values, e.g. land)", "choose a region over the data, or a finer grid");
@@ -102,6 +98,19 @@ final class SeriesPlanner {
     }
     return new SeriesPlan(cube, w, region.label(), stat, statName(statistic), step, range[0], range[1], coveragePercent, factor, conv, unit,
         warnings, weights.model() == org.slackwater.core.region.AreaModel.SPHERE ? "sphere of radius 6371000 m" : "WGS84 ellipsoid");
+  }
+
+  /** A region resolved and weighed on a cube's grid. */
+  record OnGrid(RegionResolver.Resolved region, CellWeights weights) {}
+
+  /** Resolves a region reference and its weights on the cube's grid, with errors at the reference. */
+  OnGrid onGrid(CubeEntry cube, RegionRef regionRef) {
+    RegionResolver.Resolved region = new RegionResolver(catalog, source).resolve(regionRef);
+    try {
+      return new OnGrid(region, weights.get(cube.descriptor().grid(), region.geometry()));
+    } catch (RegionException e) {
+      throw QueryException.at(regionRef, source, region.label() + ": " + e.getMessage(), "");
+    }
   }
 
   /** A stored cube, or a derived variable defined earlier in the request. */
