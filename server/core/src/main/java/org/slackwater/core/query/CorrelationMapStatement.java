@@ -31,7 +31,7 @@ import org.slackwater.query.ast.CorrelationMap;
 final class CorrelationMapStatement {
   private CorrelationMapStatement() {}
 
-  record Plan(CorrelationMap query, CubeEntry cube, CellWeights weights, String regionLabel, int[] range, TemporalStep step,
+  record Plan(CorrelationMap query, CubeEntry cube, CellWeights weights, String regionLabel, String regionWkt, int[] range, TemporalStep step,
       SeriesPlan driver, CorrelationSettings settings, Optional<Deseasonalize> deseasonalize, List<String> warnings) {}
 
   static Plan analyze(CorrelationMap q, SeriesPlanner planner) {
@@ -49,7 +49,7 @@ final class CorrelationMapStatement {
     CorrelationSettings settings = CorrelationSettings.of(m, lag, lag, 1, DriverStatements.ALPHA);
     Optional<Deseasonalize> ds = q.deseasonalized().map(d -> d.baseline()
         .map(b -> Deseasonalize.anomalies().withBaseline(b.start(), b.endInclusive())).orElse(Deseasonalize.anomalies()));
-    return new Plan(q, cube, w, region.label(), range, step, driver, settings, ds, warnings);
+    return new Plan(q, cube, w, region.label(), region.geometry().toText(), range, step, driver, settings, ds, warnings);
   }
 
   static ResultTable execute(Plan p, ChunkSource cache, String source) throws IOException {
@@ -81,6 +81,7 @@ final class CorrelationMapStatement {
     meta.put("lag", p.settings().minLag() + " " + SeriesPlanner.stepName(p.step()) + " (positive: the driver leads)");
     meta.put("method", p.settings().method().name().toLowerCase(Locale.ROOT));
     meta.put("deseasonalized", p.deseasonalize().isPresent() ? "yes" : "no");
+    meta.put("region_wkt", p.regionWkt());
     List<String> warnings = new ArrayList<>(p.warnings());
     warnings.addAll(p.driver().warnings());
     return new ResultTable("map of the correlation of " + p.cube().name() + " with " + p.driver().cube().name(), List.of(

@@ -41,7 +41,7 @@ import org.slackwater.query.ast.UnitRef;
 final class MapStatements {
   private MapStatements() {}
 
-  record Plan(MapStatement query, CubeEntry cube, CellWeights weights, String regionLabel, SpatialStatistic stat, String statName,
+  record Plan(MapStatement query, CubeEntry cube, CellWeights weights, String regionLabel, String regionWkt, SpatialStatistic stat, String statName,
       int[] range, Optional<int[]> reference, Optional<ComparisonKind> comparison, List<int[]> baselineYears,
       double factor, UnitConversion conversion, String unit, List<String> warnings) {}
 
@@ -87,7 +87,7 @@ final class MapStatements {
             "choose a longer baseline");
       }
     }
-    return new Plan(q, cube, w, region.label(), stat, SeriesPlanner.statName(term.statistic()), range, reference, cmp, years, factor, conv, unit, warnings);
+    return new Plan(q, cube, w, region.label(), region.geometry().toText(), stat, SeriesPlanner.statName(term.statistic()), range, reference, cmp, years, factor, conv, unit, warnings);
   }
 
   /** The native step ranges of the period's calendar window shifted into each baseline year it fits in. */
@@ -184,6 +184,7 @@ final class MapStatements {
     head.put("region", p.regionLabel());
     head.put("period", p.query().period().start() + " to " + p.query().period().endInclusive());
     head.put("grid", g.ny() + " x " + g.nx() + " cells");
+    head.put("region_wkt", p.regionWkt());
     head.putAll(meta);
     String title = "map of " + valueName.replace('_', ' ') + " over " + p.regionLabel() + ", " + p.query().period().start() + " to "
         + p.query().period().endInclusive();

@@ -51,8 +51,8 @@ public final class QueryEngine {
     Analysis a = analysis(text);
     ChunkSource chunks = a.derived().chunks(cache);
     List<ResultTable> out = new ArrayList<>();
-    for (Object p : a.plans()) {
-      out.add(execute(p, chunks, text));
+    for (int i = 0; i < a.plans().size(); i++) {
+      out.add(execute(a.plans().get(i), chunks, text).with(ResultKind.KEY, a.kinds().get(i).label()));
     }
     return out;
   }
@@ -119,7 +119,7 @@ public final class QueryEngine {
   }
 
   /** The plans of a request and the derived variables they may read. */
-  private record Analysis(List<Object> plans, DerivedVariables derived) {}
+  private record Analysis(List<Object> plans, List<ResultKind> kinds, DerivedVariables derived) {}
 
   /**
    * Parses and analyses without computing: names, regions and their weights, dates and units are
@@ -162,7 +162,7 @@ public final class QueryEngine {
             "see 'Statements being built' in the language reference");
       }
     }
-    return new Analysis(plans, derived);
+    return new Analysis(plans, script.statements().stream().map(ResultKind::of).toList(), derived);
   }
 
   private ResultTable execute(Object plan, ChunkSource cache, String text) {

@@ -31,6 +31,13 @@ public record ResultTable(String title, List<Column> columns, Map<String, String
     }
   }
 
+  /** A copy with one metadata entry added or replaced (kept in its first position if present). */
+  public ResultTable with(String key, String value) {
+    Map<String, String> m = new LinkedHashMap<>(metadata);
+    m.put(key, value);
+    return new ResultTable(title, columns, m, warnings);
+  }
+
   public int rowCount() {
     return columns.get(0).size();
   }
