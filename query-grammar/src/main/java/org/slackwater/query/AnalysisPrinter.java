@@ -34,6 +34,7 @@ final class AnalysisPrinter {
                     + " over " + QueryPrinter.print(c.region()) + " " + QueryPrinter.period(c.period())
                     + " " + QueryPrinter.step(c.step()) + c.lags().map(AnalysisPrinter::lags).orElse("")
                     + method(c.method()) + c.deseasonalized().map(AnalysisPrinter::deseasonalized).orElse("")
+                    + c.gaps().map(QueryPrinter::gaps).orElse("")
                     + c.coverage().map(QueryPrinter::coverage).orElse("");
         }
         if (statement instanceof DriverRanking r) {
@@ -42,6 +43,7 @@ final class AnalysisPrinter {
                     + " over " + QueryPrinter.print(r.region()) + " " + QueryPrinter.period(r.period())
                     + " " + QueryPrinter.step(r.step()) + r.lags().map(AnalysisPrinter::lags).orElse("")
                     + method(r.method()) + r.baseline().map(b -> " against " + QueryPrinter.baseline(b)).orElse("")
+                    + r.gaps().map(QueryPrinter::gaps).orElse("")
                     + r.coverage().map(QueryPrinter::coverage).orElse("");
         }
         if (statement instanceof EventWindow w) {

@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalInt;
 import org.antlr.v4.runtime.ParserRuleContext;
 import org.antlr.v4.runtime.Token;
 import org.slackwater.query.ast.AreaSeries;
@@ -35,6 +36,7 @@ import org.slackwater.query.ast.Comparison;
 import org.slackwater.query.ast.ComparisonKind;
 import org.slackwater.query.ast.Coordinate;
 import org.slackwater.query.ast.Coverage;
+import org.slackwater.query.ast.GapAllowance;
 import org.slackwater.query.ast.DescribeVariable;
 import org.slackwater.query.ast.Expression;
 import org.slackwater.query.ast.Identifier;
@@ -109,6 +111,7 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
                 (Step) visit(ctx.step().stepUnit()),
                 Optional.ofNullable(ctx.unitClause()).map(this::visitUnitClause),
                 Optional.ofNullable(ctx.comparisonClause()).map(this::visitComparisonClause),
+                Optional.ofNullable(ctx.gapClause()).map(this::visitGapClause),
                 Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
                 position(ctx));
     }
@@ -137,6 +140,7 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
                 lags(ctx.lagClause()),
                 method(ctx.methodClause()),
                 Optional.ofNullable(ctx.deseasonalizeClause()).map(this::deseasonalized),
+                Optional.ofNullable(ctx.gapClause()).map(this::visitGapClause),
                 Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
                 position(ctx));
     }
@@ -156,6 +160,7 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
                 lags(ctx.lagClause()),
                 method(ctx.methodClause()),
                 Optional.ofNullable(ctx.baselineClause()).map(b -> visitBaseline(b.baseline())),
+                Optional.ofNullable(ctx.gapClause()).map(this::visitGapClause),
                 Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
                 position(ctx));
     }
@@ -597,6 +602,31 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
             throw error(number, "coverage must be between 0 and 100 %, found " + number.getText(), "");
         }
         return new Coverage(percent, position(ctx));
+    }
+
+    @Override
+    public GapAllowance visitGapClause(SlackwaterParser.GapClauseContext ctx) {
+        Token total = ctx.NUMBER(0).getSymbol();
+        int missing = wholeDays(total, "missing days");
+        OptionalInt run = OptionalInt.empty();
+        if (ctx.NUMBER().size() > 1) {
+            Token t = ctx.NUMBER(1).getSymbol();
+            int r = wholeDays(t, "consecutive missing days");
+            if (r > missing) {
+                throw error(t, r + " consecutive missing days exceed the " + missing + " missing days allowed in all",
+                        "the run allowance is part of the total: write at most " + missing + " consecutive");
+            }
+            run = OptionalInt.of(r);
+        }
+        return new GapAllowance(missing, run, position(ctx));
+    }
+
+    private int wholeDays(Token number, String what) {
+        double v = Literals.number(number);
+        if (v != Math.rint(v) || v > 366) {
+            throw error(number, what + " must be a whole number of days from 0 to 366, found " + number.getText(), "");
+        }
+        return (int) v;
     }
 
     // ---- helpers --------------------------------------------------------------------------

@@ -15,6 +15,7 @@ import org.slackwater.query.ast.ClippedRegion;
 import org.slackwater.query.ast.Comparison;
 import org.slackwater.query.ast.ComparisonKind;
 import org.slackwater.query.ast.Coverage;
+import org.slackwater.query.ast.GapAllowance;
 import org.slackwater.query.ast.DerivedVariable;
 import org.slackwater.query.ast.Coordinate;
 import org.slackwater.query.ast.DescribeVariable;
@@ -99,6 +100,7 @@ public final class QueryPrinter {
                 .append(' ').append(step(s.step()));
         s.unit().ifPresent(u -> text.append(unitClause(u)));
         s.comparison().ifPresent(c -> text.append(' ').append(comparison(c)));
+        s.gaps().ifPresent(g -> text.append(gaps(g)));
         s.coverage().ifPresent(c -> text.append(coverage(c)));
         return text.toString();
     }
@@ -106,6 +108,12 @@ public final class QueryPrinter {
     /** {@code " in <unit>"}, the unit bare when the lexer reads it back as one unit word. */
     static String unitClause(UnitRef unit) {
         return " in " + (BARE_UNIT.matcher(unit.unit()).matches() ? unit.unit() : Literals.quote(unit.unit()));
+    }
+
+    /** {@code " with at most <n> missing days[, <m> consecutive]"}. */
+    static String gaps(GapAllowance g) {
+        return " with at most " + g.missingDays() + " missing days"
+                + (g.consecutiveDays().isPresent() ? ", " + g.consecutiveDays().getAsInt() + " consecutive" : "");
     }
 
     /** {@code " with coverage at least <n> %"}. */

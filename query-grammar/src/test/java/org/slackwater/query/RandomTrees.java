@@ -46,6 +46,7 @@ import org.slackwater.query.ast.Comparison;
 import org.slackwater.query.ast.ComparisonKind;
 import org.slackwater.query.ast.Coordinate;
 import org.slackwater.query.ast.Coverage;
+import org.slackwater.query.ast.GapAllowance;
 import org.slackwater.query.ast.DescribeVariable;
 import org.slackwater.query.ast.Identifier;
 import org.slackwater.query.ast.ListRegions;
@@ -116,14 +117,14 @@ final class RandomTrees {
 
     Correlation correlation() {
         return new Correlation(regionalSeries(), regionalSeries(), region(2), period(), step(), maybe(this::lags),
-                pick(CorrelationMethod.values()), maybe(this::deseasonalized), maybe(this::coverage), NONE);
+                pick(CorrelationMethod.values()), maybe(this::deseasonalized), maybe(this::gaps), maybe(this::coverage), NONE);
     }
 
     DriverRanking driverRanking() {
         RegionRef region = region(2);
         List<SeriesTerm> all = distinctSeries(2 + random.nextInt(4), region);
         return new DriverRanking(all.get(0), all.subList(1, all.size()), region, period(), step(), maybe(this::lags),
-                pick(CorrelationMethod.values()), maybe(this::period), maybe(this::coverage), NONE);
+                pick(CorrelationMethod.values()), maybe(this::period), maybe(this::gaps), maybe(this::coverage), NONE);
     }
 
     EventWindow eventWindow() {
@@ -274,6 +275,11 @@ final class RandomTrees {
         return new Deseasonalized(maybe(this::period), NONE);
     }
 
+    GapAllowance gaps() {
+        int total = random.nextInt(12);
+        return new GapAllowance(total, random.nextBoolean() ? java.util.OptionalInt.of(random.nextInt(total + 1)) : java.util.OptionalInt.empty(), NONE);
+    }
+
     Coverage coverage() {
         return new Coverage(random.nextBoolean() ? random.nextInt(101) : random.nextDouble() * 100, NONE);
     }
@@ -297,7 +303,7 @@ final class RandomTrees {
         return new AreaSeries(statistic(), variable(), region(3), period(), step(),
                 maybe(() -> new UnitRef(pick(UNITS), NONE)),
                 maybe(() -> new Comparison(pick(ComparisonKind.values()), maybe(this::period), NONE)),
-                maybe(this::coverage), NONE);
+                maybe(this::gaps), maybe(this::coverage), NONE);
     }
 
     Statistic statistic() {

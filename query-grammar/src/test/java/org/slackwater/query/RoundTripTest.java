@@ -48,6 +48,8 @@ class RoundTripTest {
                 "rank drivers of median chlorophyll among sum rainfall, p10 cloud_fraction over box(44, -31.3, 44.2, -31)"
                         + " during 2006 to 2025 by month lags 0 to 6 months step 3 months using spearman against 2006"
                         + " to 2020 with coverage at least 25.5 %",
+                "mean water_temperature over \"Outer Bay\" during 2014 by month with at most 5 missing days, 3 consecutive",
+                "sum rainfall over \"Harle Watershed\" during 2014 by month with at most 2 missing days with coverage at least 60 %",
                 "window 2 weeks before 2008-03-01, 2012-12-31, 2020-02-29 of min water_temperature over \"Upper Reach\""
                         + " with coverage at least 80 %",
                 "map sum rainfall over \"Harle Watershed\" from 2014-06 to 2014-08 minus 2013-06 to 2013-08 in mm",

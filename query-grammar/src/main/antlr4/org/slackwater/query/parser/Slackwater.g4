@@ -115,13 +115,13 @@ script
 
 // One labelled alternative per statement kind; later versions add alternatives here.
 statement
-    : statistic variable OVER region period step unitClause? comparisonClause? coverageClause?  # areaSeries
+    : statistic variable OVER region period step unitClause? comparisonClause? gapClause? coverageClause?  # areaSeries
     | LIST catalogList                                                                        # listCatalog
     | DESCRIBE variable                                                                        # describeVariable
     | CORRELATE seriesTerm WITH seriesTerm OVER region period step
-          lagClause? methodClause? deseasonalizeClause? coverageClause?                        # correlation
+          lagClause? methodClause? deseasonalizeClause? gapClause? coverageClause?             # correlation
     | RANK DRIVERS OF seriesTerm AMONG seriesTerm (COMMA seriesTerm)* OVER region period step
-          lagClause? methodClause? baselineClause? coverageClause?                             # driverRanking
+          lagClause? methodClause? baselineClause? gapClause? coverageClause?                  # driverRanking
     | WINDOW duration BEFORE date (COMMA date)* OF seriesTerm (COMMA seriesTerm)* OVER region
           baselineClause? coverageClause?                                                      # eventWindow
     | MAP mapSpec                                                                              # map
@@ -239,6 +239,12 @@ comparisonKind
 
 coverageClause
     : WITH COVERAGE AT LEAST NUMBER PERCENT
+    ;
+
+// How many native days a step may miss and still have a value: 'with at most 5 missing days,
+// 3 consecutive'. Without it a mean needs one day with a value and a sum needs every day.
+gapClause
+    : WITH AT MOST NUMBER MISSING DAYS (COMMA NUMBER CONSECUTIVE)?
     ;
 
 // ---- parts of the statements being built ---------------------------------------------------
@@ -458,6 +464,8 @@ SEVERITY     : 'severity' ;
 ABOVE        : 'above' ;
 BELOW        : 'below' ;
 MOST         : 'most' ;
+MISSING      : 'missing' ;
+CONSECUTIVE  : 'consecutive' ;
 FOR          : 'for' ;
 AND          : 'and' ;
 OR           : 'or' ;

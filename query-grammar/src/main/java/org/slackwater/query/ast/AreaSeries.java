@@ -16,6 +16,7 @@ public record AreaSeries(
         Step step,
         Optional<UnitRef> unit,
         Optional<Comparison> comparison,
+        Optional<GapAllowance> gaps,
         Optional<Coverage> coverage,
         Position position)
         implements Statement {
@@ -28,7 +29,13 @@ public record AreaSeries(
         Objects.requireNonNull(step, "step");
         Objects.requireNonNull(unit, "unit");
         Objects.requireNonNull(comparison, "comparison");
+        Objects.requireNonNull(gaps, "gaps");
         Objects.requireNonNull(coverage, "coverage");
         Objects.requireNonNull(position, "position");
+    }
+
+    /** Without a missing-days allowance (the defaults of the statistic apply). */
+    public AreaSeries(Statistic statistic, Identifier variable, RegionRef region, Period period, Step step, Optional<UnitRef> unit, Optional<Comparison> comparison, Optional<Coverage> coverage, Position position) {
+        this(statistic, variable, region, period, step, unit, comparison, Optional.empty(), coverage, position);
     }
 }

@@ -30,7 +30,7 @@ public final class AstPositions {
             AreaSeries s = (AreaSeries) node;
             return new AreaSeries(erase(s.statistic()), erase(s.variable()), erase(s.region()),
                     erase(s.period()), erase(s.step()), s.unit().map(AstPositions::erase),
-                    s.comparison().map(AstPositions::erase), s.coverage().map(AstPositions::erase), none);
+                    s.comparison().map(AstPositions::erase), s.gaps().map(AstPositions::erase), s.coverage().map(AstPositions::erase), none);
         }
         if (node instanceof ListVariables) {
             return new ListVariables(none);
@@ -92,6 +92,9 @@ public final class AstPositions {
             Comparison c = (Comparison) node;
             return new Comparison(c.kind(), c.baseline().map(AstPositions::erase), none);
         }
+        if (node instanceof GapAllowance g) {
+            return new GapAllowance(g.missingDays(), g.consecutiveDays(), none);
+        }
         if (node instanceof Coverage) {
             return new Coverage(((Coverage) node).percent(), none);
         }
@@ -112,11 +115,11 @@ public final class AstPositions {
         if (node instanceof Correlation c) {
             return new Correlation(erase(c.series()), erase(c.driver()), erase(c.region()), erase(c.period()),
                     erase(c.step()), eraseAll(c.lags()), c.method(), eraseAll(c.deseasonalized()),
-                    eraseAll(c.coverage()), none);
+                    eraseAll(c.gaps()), eraseAll(c.coverage()), none);
         }
         if (node instanceof DriverRanking r) {
             return new DriverRanking(erase(r.series()), eraseAll(r.drivers()), erase(r.region()), erase(r.period()),
-                    erase(r.step()), eraseAll(r.lags()), r.method(), eraseAll(r.baseline()), eraseAll(r.coverage()),
+                    erase(r.step()), eraseAll(r.lags()), r.method(), eraseAll(r.baseline()), eraseAll(r.gaps()), eraseAll(r.coverage()),
                     none);
         }
         if (node instanceof EventWindow w) {

@@ -19,6 +19,7 @@ public record Correlation(
         Optional<LagRange> lags,
         CorrelationMethod method,
         Optional<Deseasonalized> deseasonalized,
+        Optional<GapAllowance> gaps,
         Optional<Coverage> coverage,
         Position position)
         implements Statement {
@@ -32,7 +33,13 @@ public record Correlation(
         Objects.requireNonNull(lags, "lags");
         Objects.requireNonNull(method, "method");
         Objects.requireNonNull(deseasonalized, "deseasonalized");
+        Objects.requireNonNull(gaps, "gaps");
         Objects.requireNonNull(coverage, "coverage");
         Objects.requireNonNull(position, "position");
+    }
+
+    /** Without a missing-days allowance (the defaults of the statistic apply). */
+    public Correlation(SeriesTerm series, SeriesTerm driver, RegionRef region, Period period, Step step, Optional<LagRange> lags, CorrelationMethod method, Optional<Deseasonalized> deseasonalized, Optional<Coverage> coverage, Position position) {
+        this(series, driver, region, period, step, lags, method, deseasonalized, Optional.empty(), coverage, position);
     }
 }

@@ -24,6 +24,7 @@ public record DriverRanking(
         Optional<LagRange> lags,
         CorrelationMethod method,
         Optional<Period> baseline,
+        Optional<GapAllowance> gaps,
         Optional<Coverage> coverage,
         Position position)
         implements Statement {
@@ -37,6 +38,7 @@ public record DriverRanking(
         Objects.requireNonNull(lags, "lags");
         Objects.requireNonNull(method, "method");
         Objects.requireNonNull(baseline, "baseline");
+        Objects.requireNonNull(gaps, "gaps");
         Objects.requireNonNull(coverage, "coverage");
         Objects.requireNonNull(position, "position");
         if (drivers.isEmpty()) {
@@ -49,5 +51,10 @@ public record DriverRanking(
                         + series.variable().name());
             }
         }
+    }
+
+    /** Without a missing-days allowance (the defaults of the statistic apply). */
+    public DriverRanking(SeriesTerm series, List<SeriesTerm> drivers, RegionRef region, Period period, Step step, Optional<LagRange> lags, CorrelationMethod method, Optional<Period> baseline, Optional<Coverage> coverage, Position position) {
+        this(series, drivers, region, period, step, lags, method, baseline, Optional.empty(), coverage, position);
     }
 }

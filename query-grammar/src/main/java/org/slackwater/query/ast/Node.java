@@ -6,7 +6,7 @@ package org.slackwater.query.ast;
  */
 public sealed interface Node
         permits Script, Statement, RegionRef, Statistic, Identifier, Coordinate, Quantity, Period,
-                PartialDate, Step, UnitRef, Comparison, Coverage, SeriesTerm, Duration, LagRange,
+                PartialDate, Step, UnitRef, Comparison, Coverage, GapAllowance, SeriesTerm, Duration, LagRange,
                 Deseasonalized, WatchRule, WatchSeries, Threshold, Condition, Expression {
 
     /** Line and column of the node's first token. */

@@ -10,9 +10,11 @@ import java.util.List;
  * aggregate follows the statistic, so that a statement reads the same in space and in time:
  *
  * <ul>
- *   <li>mean: mean of the native values with a value (at least one needed);
- *   <li>sum: total of the native values; every native step of the period must have a value, as a
- *       total over a period with gaps would be too low (a rule for totals such as rainfall);
+ *   <li>mean: mean of the native values with a value (at least one needed, unless the {@link
+ *       GapRule} asks for more);
+ *   <li>sum: total of the native values; by default every native step of the period must have a
+ *       value, as a total over a period with gaps would be too low (a rule for totals such as
+ *       rainfall); with a rule that allows gaps, the mean of the values times the period's steps;
  *   <li>min, max: the extreme of the native values;
  *   <li>percentile p: the p-th percentile of the period's native values, by the same
  *       inverse-distribution rule as in space (each native step weighted equally).
@@ -25,7 +27,16 @@ public final class TemporalAggregation {
 
   private TemporalAggregation() {}
 
+  /** With the statistic's default {@link GapRule}. */
   public static StepSeries aggregate(DailySeries daily, TemporalStep step, SpatialStatistic stat) {
+    return aggregate(daily, step, stat, GapRule.defaultFor(stat));
+  }
+
+  /**
+   * Periods that fail {@code gaps} are NaN; a sum over a period with allowed gaps is the mean of
+   * its values times its native steps (see {@link GapRule}).
+   */
+  public static StepSeries aggregate(DailySeries daily, TemporalStep step, SpatialStatistic stat, GapRule gaps) {
     List<LocalDate> starts = new ArrayList<>();
     List<int[]> ranges = new ArrayList<>();
     int n = daily.size();
@@ -59,9 +70,9 @@ public final class TemporalAggregation {
       with[p] = k;
       frac[p] = f / (b - a);
       cells[p] = c / (b - a);
-      value[p] = k == 0 ? Double.NaN : switch (stat.kind()) {
+      value[p] = !gaps.accepts(daily.value(), a, b) ? Double.NaN : switch (stat.kind()) {
         case MEAN -> mean(vals, k);
-        case SUM -> k == b - a ? sum(vals, k) : Double.NaN;
+        case SUM -> k == b - a ? sum(vals, k) : mean(vals, k) * (b - a);
         case MIN -> Arrays.stream(vals, 0, k).min().getAsDouble();
         case MAX -> Arrays.stream(vals, 0, k).max().getAsDouble();
         case PERCENTILE -> percentile(vals, k, stat.percentile());

@@ -34,7 +34,7 @@ final class AreaSeriesStatement {
 
   static Plan analyze(AreaSeries q, SeriesPlanner planner) {
     double coverage = q.coverage().map(c -> c.percent()).orElse(SeriesPlanner.DEFAULT_COVERAGE_PERCENT);
-    SeriesPlan series = planner.plan(q.statistic(), q.variable(), q.region(), q.period(), q.step().kind(), q.unit(), coverage);
+    SeriesPlan series = planner.withGaps(planner.plan(q.statistic(), q.variable(), q.region(), q.period(), q.step().kind(), q.unit(), coverage), q.gaps());
     int[] baseline = null;
     if (q.comparison().isPresent()) {
       Comparison c = q.comparison().get();
@@ -132,6 +132,9 @@ final class AreaSeriesStatement {
     meta.put("step", step.name().toLowerCase(Locale.ROOT));
     meta.put("coverage_rule", "native steps with less than " + SeriesPlanner.fmt(sp.coveragePercent())
         + " % of the region's data area valid are missing");
+    meta.put("missing_days_rule", sp.gaps().describe(SeriesPlanner.stepName(step))
+        + (sp.stat().kind() == org.slackwater.core.analytics.SpatialStatistic.Kind.SUM && !sp.gaps().complete()
+            ? "; a sum over allowed gaps is the mean of its days times the days of the " + SeriesPlanner.stepName(step) : ""));
     meta.put("calendar", time.calendar() + " (" + time.alignment().name().toLowerCase(Locale.ROOT) + ")");
     meta.putAll(extra);
     AreaSeries q = plan.query();

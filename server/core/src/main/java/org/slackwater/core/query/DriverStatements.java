@@ -56,8 +56,8 @@ final class DriverStatements {
 
   static CorrelationPlan analyze(Correlation q, SeriesPlanner planner) {
     double cov = coverage(q.coverage());
-    SeriesPlan target = planner.plan(q.series().statistic(), q.series().variable(), q.series().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov);
-    SeriesPlan driver = planner.plan(q.driver().statistic(), q.driver().variable(), q.driver().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov);
+    SeriesPlan target = planner.withGaps(planner.plan(q.series().statistic(), q.series().variable(), q.series().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov), q.gaps());
+    SeriesPlan driver = planner.withGaps(planner.plan(q.driver().statistic(), q.driver().variable(), q.driver().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov), q.gaps());
     CorrelationSettings settings = settings(q.lags(), q.method(), target.step(), planner.source(), q);
     Optional<Deseasonalize> ds = q.deseasonalized().map(d -> baseline(Deseasonalize.anomalies(), d.baseline()));
     return new CorrelationPlan(q, target, driver, settings, ds);
@@ -82,10 +82,10 @@ final class DriverStatements {
 
   static RankingPlan analyze(DriverRanking q, SeriesPlanner planner) {
     double cov = coverage(q.coverage());
-    SeriesPlan target = planner.plan(q.series().statistic(), q.series().variable(), q.series().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov);
+    SeriesPlan target = planner.withGaps(planner.plan(q.series().statistic(), q.series().variable(), q.series().regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov), q.gaps());
     List<SeriesPlan> drivers = new ArrayList<>();
     for (SeriesTerm term : q.drivers()) {
-      drivers.add(planner.plan(term.statistic(), term.variable(), term.regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov));
+      drivers.add(planner.withGaps(planner.plan(term.statistic(), term.variable(), term.regionOr(q.region()), q.period(), q.step().kind(), Optional.empty(), cov), q.gaps()));
     }
     CorrelationSettings settings = settings(q.lags(), q.method(), target.step(), planner.source(), q);
     return new RankingPlan(q, target, drivers, q.drivers(), settings, baseline(Deseasonalize.anomalies(), q.baseline()));

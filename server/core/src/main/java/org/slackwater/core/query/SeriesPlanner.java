@@ -97,7 +97,25 @@ final class SeriesPlanner {
       unit = want;
     }
     return new SeriesPlan(cube, w, region.label(), stat, statName(statistic), step, range[0], range[1], coveragePercent, factor, conv, unit,
-        warnings, weights.model() == org.slackwater.core.region.AreaModel.SPHERE ? "sphere of radius 6371000 m" : "WGS84 ellipsoid");
+        warnings, weights.model() == org.slackwater.core.region.AreaModel.SPHERE ? "sphere of radius 6371000 m" : "WGS84 ellipsoid",
+        org.slackwater.core.analytics.GapRule.defaultFor(stat));
+  }
+
+  /**
+   * The statement's missing-days clause applied to a planned series. The clause counts days, so
+   * the cube must have daily native steps.
+   */
+  SeriesPlan withGaps(SeriesPlan plan, java.util.Optional<org.slackwater.query.ast.GapAllowance> clause) {
+    if (clause.isEmpty()) {
+      return plan;
+    }
+    org.slackwater.query.ast.GapAllowance g = clause.get();
+    double days = nativeStepDays(plan.cube().descriptor().time());
+    if (Math.abs(days - 1) > 1e-9) {
+      throw QueryException.at(g, source, "the missing-days rule counts days, but '" + plan.cube().name() + "' has native steps of "
+          + fmt(days * 24) + " hours", "leave the clause out; the steps and steps_expected columns show how many steps had a value");
+    }
+    return plan.withGaps(org.slackwater.core.analytics.GapRule.atMost(g.missingDays(), g.consecutiveDays()));
   }
 
   /** A region resolved and weighed on a cube's grid. */
