@@ -1,0 +1,37 @@
+package org.slackwater.alerts;
+
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.time.ZoneId;
+import java.time.ZoneOffset;
+import java.util.concurrent.atomic.AtomicReference;
+
+/** A clock tests move by hand, so backoff is tested without sleeping. */
+final class MutableClock extends Clock {
+
+  private final AtomicReference<Instant> now;
+
+  MutableClock(Instant start) {
+    now = new AtomicReference<>(start);
+  }
+
+  void advance(Duration d) {
+    now.updateAndGet(t -> t.plus(d));
+  }
+
+  @Override
+  public Instant instant() {
+    return now.get();
+  }
+
+  @Override
+  public ZoneId getZone() {
+    return ZoneOffset.UTC;
+  }
+
+  @Override
+  public Clock withZone(ZoneId zone) {
+    throw new UnsupportedOperationException("tests use UTC");
+  }
+}
