@@ -30,6 +30,8 @@ import org.slf4j.LoggerFactory;
 final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
   private static final Logger LOG = LoggerFactory.getLogger(ApiHandler.class);
 
+  private static final StaticFiles WEB = StaticFiles.packaged();
+
   private final Endpoints endpoints;
   private final ServerConfig config;
 
@@ -43,7 +45,8 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
     Reply reply;
     try {
       reply = route(req);
-    } catch (RuntimeException e) {
+    } catch (RuntimeException | LinkageError e) {
+      // A LinkageError is a broken installation (a missing library): answer rather than drop the connection.
       LOG.error("request {} {} failed", req.method(), req.uri(), e);
       reply = Problem.of(HttpResponseStatus.INTERNAL_SERVER_ERROR, "Internal error",
           "the server failed while answering; the log has the details");
@@ -56,6 +59,9 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
     String path = uri.path();
     HttpMethod m = req.method();
     String body = req.content().toString(StandardCharsets.UTF_8);
+    if (!path.equals("/api") && !path.startsWith("/api/")) {
+      return WEB.serve(m, req.uri(), req.headers().get(HttpHeaderNames.IF_NONE_MATCH));
+    }
     if (path.equals("/api/health")) {
       return m.equals(HttpMethod.GET) ? endpoints.health() : notAllowed("GET");
     }
@@ -63,7 +69,8 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       if (!m.equals(HttpMethod.POST)) {
         return notAllowed("POST");
       }
-      return endpoints.query(body, param(uri, "format"), req.headers().get(HttpHeaderNames.ACCEPT));
+      return endpoints.query(body, param(uri, "format"), req.headers().get(HttpHeaderNames.ACCEPT),
+          new PlotSize(param(uri, "width"), param(uri, "height"), param(uri, "scale")));
     }
     if (path.equals("/api/matchups")) {
       if (!m.equals(HttpMethod.POST)) {

@@ -55,6 +55,10 @@ final class Endpoints {
   }
 
   Reply query(String text, String formatParam, String accept) {
+    return query(text, formatParam, accept, PlotSize.DEFAULT);
+  }
+
+  Reply query(String text, String formatParam, String accept, PlotSize size) {
     Optional<ResultFormat> format = ResultFormat.choose(formatParam, accept);
     if (format.isEmpty()) {
       return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "No such result format",
@@ -70,10 +74,31 @@ final class Endpoints {
     } catch (QueryException e) {
       return Problem.query(e);
     }
+    if (format.get() == ResultFormat.PNG) {
+      return plot(tables, size);
+    }
     return write(tables, format.get());
   }
 
+  /** One PNG for the query's results; a result without a plot (catalog, watch) is a 422. */
+  static Reply plot(List<ResultTable> tables, PlotSize size) {
+    org.slackwater.render.PlotOptions options;
+    try {
+      options = size.options();
+    } catch (IllegalArgumentException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad plot size", e.getMessage());
+    }
+    try {
+      return Reply.of(HttpResponseStatus.OK, ResultFormat.PNG.mediaType, org.slackwater.render.PngRenderer.render(tables, options));
+    } catch (org.slackwater.render.PlotException e) {
+      return Problem.of(HttpResponseStatus.UNPROCESSABLE_ENTITY, "No plot for these results", e.getMessage());
+    }
+  }
+
   private Reply write(List<ResultTable> tables, ResultFormat format) {
+    if (format == ResultFormat.PNG) {
+      return plot(tables, PlotSize.DEFAULT);
+    }
     try {
       ByteArrayOutputStream out = new ByteArrayOutputStream();
       if (format != ResultFormat.JSON) {

@@ -5,12 +5,14 @@ import java.util.Optional;
 
 /**
  * The result formats, chosen by {@code ?format=} (which wins) or the Accept header. With neither,
- * or {@code *}{@code /*}, results are CSV.
+ * or {@code *}{@code /*}, results are CSV. PNG is a plot of the results (org.slackwater.render),
+ * sized by {@code width}, {@code height} and {@code scale} parameters.
  */
 enum ResultFormat {
   CSV("csv", "text/csv"),
   JSON("json", "application/json"),
-  ARROW("arrow", "application/vnd.apache.arrow.stream");
+  ARROW("arrow", "application/vnd.apache.arrow.stream"),
+  PNG("png", "image/png");
 
   final String name;
   final String mediaType;
@@ -52,6 +54,6 @@ enum ResultFormat {
   }
 
   static String names() {
-    return "csv (text/csv), json (application/json), arrow (application/vnd.apache.arrow.stream)";
+    return "csv (text/csv), json (application/json), arrow (application/vnd.apache.arrow.stream), png (image/png)";
   }
 }

@@ -1,0 +1,90 @@
+package org.slackwater.render;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.awt.Font;
+import java.awt.Graphics2D;
+import java.awt.Rectangle;
+import java.awt.RenderingHints;
+import java.awt.Stroke;
+import java.awt.TexturePaint;
+import java.awt.image.BufferedImage;
+
+/**
+ * The look shared by every plot: a calm slate-and-teal scheme on white, SansSerif type, light
+ * grid. Sizes are layout pixels; {@link PlotOptions#scale()} enlarges everything together.
+ * Paints that carry meaning (missing data, threshold, positive/negative anomaly) are chosen so that
+ * none of them occurs in the colour maps or in another role.
+ */
+final class Style {
+  private Style() {}
+
+  static final Color BACKGROUND = Color.WHITE;
+  static final Color TEXT = new Color(0x24, 0x32, 0x3d);
+  static final Color MUTED_TEXT = new Color(0x5e, 0x6b, 0x75);
+  static final Color AXIS = new Color(0x6b, 0x77, 0x80);
+  static final Color GRID = new Color(0xe2, 0xe6, 0xe9);
+  static final Color ZERO_LINE = new Color(0x9a, 0xa5, 0xad);
+
+  /** Lines of plain series, filled bars of significant correlations. */
+  static final Color PRIMARY = new Color(0x1f, 0x5c, 0x73);
+  /** Bars of correlations that are not significant. */
+  static final Color SECONDARY = new Color(0xa9, 0xc4, 0xd0);
+  /** The baseline climatology: band and mean line. */
+  static final Color BAND = new Color(0xdc, 0xe5, 0xe3);
+  static final Color BASELINE = new Color(0x6f, 0x8a, 0x84);
+  /** Anomalies above and below the baseline. */
+  static final Color ABOVE = new Color(0xc4, 0x6a, 0x3e);
+  static final Color BELOW = new Color(0x4a, 0x86, 0xa8);
+  /** Significance thresholds. */
+  static final Color THRESHOLD = new Color(0xb3, 0x3c, 0x5a);
+  /** Event markers and the best-lag label. */
+  static final Color EVENT = new Color(0x8a, 0x6d, 0x1f);
+
+  /**
+   * Map cells without a value: a neutral grey that no colour map contains, hatched. Mid grey is
+   * the neutral farthest from both maps: every viridis entry and every RdBu colour differs from it
+   * by more than 40 in some channel (checked in the tests).
+   */
+  static final Color MISSING = new Color(0xa0, 0xa0, 0xa0);
+  static final Color MISSING_HATCH = new Color(0x70, 0x70, 0x70);
+  static final Color OUTLINE = new Color(0x1b, 0x22, 0x28);
+  static final Color OUTLINE_HALO = Color.WHITE;
+
+  static final String FAMILY = Font.SANS_SERIF;
+  static final Font TITLE = new Font(FAMILY, Font.BOLD, 15);
+  static final Font SUBTITLE = new Font(FAMILY, Font.PLAIN, 12);
+  static final Font AXIS_LABEL = new Font(FAMILY, Font.PLAIN, 12);
+  static final Font TICK = new Font(FAMILY, Font.PLAIN, 11);
+  static final Font NOTE = new Font(FAMILY, Font.PLAIN, 10);
+  static final Font LEGEND = new Font(FAMILY, Font.PLAIN, 11);
+
+  static final Stroke LINE = new BasicStroke(2.0f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+  static final Stroke THIN = new BasicStroke(1.0f);
+  static final Stroke THIN_LINE = new BasicStroke(1.0f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+  static final Stroke DASHED = new BasicStroke(1.6f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10f, new float[] {6f, 4f}, 0f);
+  static final Stroke GRID_STROKE = new BasicStroke(0.8f);
+
+  /** Diagonal hatch for hollow bars: thin lines of {@code line} on white. */
+  static TexturePaint hatch(Color line) {
+    BufferedImage tile = new BufferedImage(8, 8, BufferedImage.TYPE_INT_RGB);
+    Graphics2D g = tile.createGraphics();
+    g.setColor(BACKGROUND);
+    g.fillRect(0, 0, 8, 8);
+    g.setColor(line);
+    g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_OFF);
+    for (int i = 0; i < 8; i++) {
+      g.fillRect(i, 7 - i, 1, 1);
+    }
+    g.dispose();
+    return new TexturePaint(tile, new Rectangle(0, 0, 8, 8));
+  }
+
+  static void quality(Graphics2D g) {
+    g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_ON);
+    g.setRenderingHint(RenderingHints.KEY_TEXT_ANTIALIASING, RenderingHints.VALUE_TEXT_ANTIALIAS_ON);
+    g.setRenderingHint(RenderingHints.KEY_FRACTIONALMETRICS, RenderingHints.VALUE_FRACTIONALMETRICS_ON);
+    g.setRenderingHint(RenderingHints.KEY_STROKE_CONTROL, RenderingHints.VALUE_STROKE_PURE);
+    g.setRenderingHint(RenderingHints.KEY_RENDERING, RenderingHints.VALUE_RENDER_QUALITY);
+  }
+}
