@@ -117,11 +117,30 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       return notAllowed("GET, POST");
     }
     if (path.startsWith("/api/watches/")) {
-      String name = decode(path.substring("/api/watches/".length()));
+      String rest = path.substring("/api/watches/".length());
+      String accept = req.headers().get(HttpHeaderNames.ACCEPT);
+      PlotSize size = new PlotSize(param(uri, "width"), param(uri, "height"), param(uri, "scale"));
+      for (String action : List.of("/evaluate", "/backtest", "/channels")) {
+        if (rest.endsWith(action)) {
+          String name = decode(rest.substring(0, rest.length() - action.length()));
+          return switch (action) {
+            case "/evaluate" -> m.equals(HttpMethod.POST)
+                ? admin(req).orElseGet(() -> endpoints.evaluateWatch(name, param(uri, "from"), param(uri, "to"), param(uri, "format"), accept, size))
+                : notAllowed("POST");
+            case "/backtest" -> m.equals(HttpMethod.POST)
+                ? endpoints.backtestWatch(name, body, param(uri, "lead"), param(uri, "format"), accept, size) : notAllowed("POST");
+            default -> m.equals(HttpMethod.PUT) ? admin(req).orElseGet(() -> endpoints.putWatchChannels(name, body)) : notAllowed("PUT");
+          };
+        }
+      }
+      String name = decode(rest);
+      if (m.equals(HttpMethod.GET)) {
+        return endpoints.watch(name, param(uri, "format"), accept);
+      }
       if (m.equals(HttpMethod.DELETE)) {
         return admin(req).orElseGet(() -> endpoints.deleteWatch(name));
       }
-      return notAllowed("DELETE");
+      return notAllowed("GET, DELETE");
     }
     return Problem.of(HttpResponseStatus.NOT_FOUND, "No such endpoint",
         "the API has /api/query, /api/cubes, /api/regions, /api/watches and /api/health");

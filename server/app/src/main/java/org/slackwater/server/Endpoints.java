@@ -41,9 +41,12 @@ final class Endpoints {
   private final Workspace workspace;
   private final ServerConfig config;
 
-  Endpoints(Workspace workspace, ServerConfig config) {
+  private final WatchService watchService;
+
+  Endpoints(Workspace workspace, ServerConfig config, WatchService watchService) {
     this.workspace = workspace;
     this.config = config;
+    this.watchService = watchService;
   }
 
   Reply health() {
@@ -214,6 +217,7 @@ final class Endpoints {
     }
     try {
       List<IngestReport> reports = workspace.ingestor().ingest(file, Optional.empty());
+      reports.forEach(r -> watchService.afterIngest(r.cube()));
       ArrayNode a = JSON.createArrayNode();
       for (IngestReport r : reports) {
         a.addObject().put("cube", r.cube()).put("version", r.version()).put("values", r.values()).put("seconds", r.seconds());
@@ -251,9 +255,139 @@ final class Endpoints {
 
   Reply deleteWatch(String name) {
     if (!workspace.catalog().removeWatch(name)) {
-      return Problem.of(HttpResponseStatus.NOT_FOUND, "No such watch", "there is no watch named '" + name + "'; GET /api/watches lists them");
+      return noSuchWatch(name);
     }
+    watchService.ledger().forget(name);
     return Reply.of(HttpResponseStatus.NO_CONTENT, JSON_TYPE, new byte[0]);
+  }
+
+  private static Reply noSuchWatch(String name) {
+    return Problem.of(HttpResponseStatus.NOT_FOUND, "No such watch", "there is no watch named '" + name + "'; GET /api/watches lists them");
+  }
+
+  /** One stored watch: its text, version, destinations (secrets hidden) and recorded transitions. */
+  Reply watch(String name, String formatParam, String accept) {
+    Optional<StoredWatch> w = watchService.watch(name);
+    if (w.isEmpty()) {
+      return noSuchWatch(name);
+    }
+    ObjectNode o = JSON.createObjectNode();
+    o.put("name", w.get().name()).put("version", w.get().version()).put("created", w.get().created().toString()).put("text", w.get().text());
+    watchService.ledger().evaluatedTo(w.get().name(), w.get().version()).ifPresent(d -> o.put("evaluated_to", d.toString()));
+    ArrayNode ch = o.putArray("channels");
+    watchService.channelSummary(w.get().name()).forEach(ch::add);
+    ArrayNode tr = o.putArray("transitions");
+    for (var t : watchService.ledger().transitions(w.get().name())) {
+      ObjectNode n = tr.addObject().put("day", t.day().toString()).put("state", t.state().label()).put("level", t.level())
+          .put("version", t.version()).put("key", t.key()).put("recorded_at", t.recordedAt().toString());
+      ObjectNode v = n.putObject("values");
+      t.values().forEach((k, x) -> {
+        if (x == null) {
+          v.putNull(k);
+        } else {
+          v.put(k, x);
+        }
+      });
+    }
+    o.put("caution", WatchStatements.CAUTION);
+    return Reply.text(HttpResponseStatus.OK, JSON_TYPE, o.toString());
+  }
+
+  /** Evaluates a stored watch over {@code from..to} (default: its last 30 days of data), recording and alerting its transitions. */
+  Reply evaluateWatch(String name, String from, String to, String formatParam, String accept, PlotSize size) {
+    Optional<StoredWatch> w = watchService.watch(name);
+    if (w.isEmpty()) {
+      return noSuchWatch(name);
+    }
+    try {
+      java.time.LocalDate last = workspace.engine().watchSpan(w.get().text())[1];
+      java.time.LocalDate a = from == null ? last.minusDays(29) : day(from, "from");
+      java.time.LocalDate b = to == null ? last : day(to, "to");
+      if (b.isBefore(a)) {
+        return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad date range", "'to' (" + b + ") is before 'from' (" + a + ")");
+      }
+      var run = watchService.evaluate(w.get(), a, b);
+      return formatted(List.of(org.slackwater.core.watch.WatchTables.of(run, false)), formatParam, accept, size);
+    } catch (IllegalArgumentException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad date", e.getMessage());
+    } catch (QueryException e) {
+      return Problem.query(e);
+    }
+  }
+
+  /**
+   * Runs a stored watch over its whole record against event dates (the body: one ISO date per
+   * line, or a CSV whose first column holds them; a header line and lines starting with # are
+   * skipped). Nothing is recorded or sent.
+   */
+  Reply backtestWatch(String name, String body, String lead, String formatParam, String accept, PlotSize size) {
+    Optional<StoredWatch> w = watchService.watch(name);
+    if (w.isEmpty()) {
+      return noSuchWatch(name);
+    }
+    List<java.time.LocalDate> events = new java.util.ArrayList<>();
+    int lineNo = 0;
+    for (String line : body.split("\\R")) {
+      lineNo++;
+      String cell = line.split(",", 2)[0].trim().replace("\"", "");
+      if (cell.isEmpty() || cell.startsWith("#")) {
+        continue;
+      }
+      try {
+        events.add(java.time.LocalDate.parse(cell));
+      } catch (java.time.format.DateTimeParseException e) {
+        if (lineNo == 1) {
+          continue; // a header
+        }
+        return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad event date",
+            "line " + lineNo + " of the event list: '" + cell + "' is not a date; give one YYYY-MM-DD per line (or as the first CSV column)");
+      }
+    }
+    if (events.isEmpty()) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "No event dates", "send the event dates as the body, one YYYY-MM-DD per line");
+    }
+    int leadDays;
+    try {
+      leadDays = lead == null ? org.slackwater.core.watch.WatchBacktest.DEFAULT_LEAD_DAYS : Integer.parseInt(lead.trim());
+      var result = org.slackwater.core.watch.WatchBacktest.of(watchService.history(w.get()), events, leadDays);
+      return formatted(List.of(org.slackwater.core.watch.WatchBacktest.table(result)), formatParam, accept, size);
+    } catch (NumberFormatException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad lead window", "lead must be a whole number of days, found '" + lead + "'");
+    } catch (IllegalArgumentException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad lead window", e.getMessage());
+    } catch (QueryException e) {
+      return Problem.query(e);
+    }
+  }
+
+  /** Stores a watch's alert destinations (a JSON array: webhook or e-mail channels). */
+  Reply putWatchChannels(String name, String body) {
+    Optional<StoredWatch> w = watchService.watch(name);
+    if (w.isEmpty()) {
+      return noSuchWatch(name);
+    }
+    try {
+      watchService.setChannels(w.get().name(), body);
+    } catch (org.slackwater.alerts.ChannelException e) {
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad alert destinations", e.getMessage());
+    }
+    return watch(w.get().name(), null, null);
+  }
+
+  private Reply formatted(List<ResultTable> tables, String formatParam, String accept, PlotSize size) {
+    Optional<ResultFormat> format = ResultFormat.choose(formatParam, accept == null || accept.isBlank() ? "application/json" : accept);
+    if (format.isEmpty()) {
+      return Problem.of(HttpResponseStatus.NOT_ACCEPTABLE, "No such result format", "results come as " + ResultFormat.names());
+    }
+    return format.get() == ResultFormat.PNG ? plot(tables, size) : write(tables, format.get());
+  }
+
+  private static java.time.LocalDate day(String text, String what) {
+    try {
+      return java.time.LocalDate.parse(text.trim());
+    } catch (java.time.format.DateTimeParseException e) {
+      throw new IllegalArgumentException(what + " must be a date YYYY-MM-DD, found '" + text + "'");
+    }
   }
 
   private static String sha256(String s) {

@@ -27,16 +27,34 @@ public final class HttpServer implements AutoCloseable {
   /** Every open connection, so that closing waits for them before the executors go away. */
   private final ChannelGroup connections = new DefaultChannelGroup(GlobalEventExecutor.INSTANCE);
 
-  private HttpServer(Workspace workspace, ServerConfig config) throws InterruptedException {
+  private final WatchService watches;
+
+  private HttpServer(Workspace workspace, ServerConfig config, org.slackwater.alerts.RetryPolicy retry) throws InterruptedException {
+    this.watches = new WatchService(workspace, java.time.Clock.systemUTC(), java.time.Duration.ofSeconds(5), retry);
     ServerBootstrap b = new ServerBootstrap()
         .group(boss, io)
         .channel(NioServerSocketChannel.class)
-        .childHandler(new HttpInitializer(new Endpoints(workspace, config), config, workers, connections));
-    this.channel = b.bind(config.host(), config.port()).sync().channel();
+        .childHandler(new HttpInitializer(new Endpoints(workspace, config, watches), config, workers, connections));
+    try {
+      this.channel = b.bind(config.host(), config.port()).sync().channel();
+    } catch (RuntimeException | InterruptedException e) {
+      watches.close();
+      throw e;
+    }
+  }
+
+  /** The watch runner, e.g. for the drop folder to call after an ingest. */
+  WatchService watches() {
+    return watches;
   }
 
   public static HttpServer start(Workspace workspace, ServerConfig config) throws InterruptedException {
-    return new HttpServer(workspace, config);
+    return new HttpServer(workspace, config, org.slackwater.alerts.RetryPolicy.DEFAULT);
+  }
+
+  /** With another retry schedule for alert deliveries (tests use seconds, not the default minutes). */
+  static HttpServer start(Workspace workspace, ServerConfig config, org.slackwater.alerts.RetryPolicy retry) throws InterruptedException {
+    return new HttpServer(workspace, config, retry);
   }
 
   public int port() {
@@ -61,5 +79,6 @@ public final class HttpServer implements AutoCloseable {
     boss.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
     io.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
     workers.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
+    watches.close();
   }
 }

@@ -35,10 +35,11 @@ import org.slackwater.query.ast.VariableRef;
  * units udunits does not know (FNU) are carried as symbols, so a site line {@code 1.3 mg/L/FNU *
  * turbidity + 2.1 mg/L} comes out in mg/L. A missing input value makes the result missing.
  *
- * <p>Inputs must share one grid, time axis and chunking, so that chunks line up one to one;
- * combining cubes on different grids needs regridding first, and is refused with a clear message.
- * Values are computed chunk by chunk when an operator asks for them ({@link #chunks}); nothing is
- * stored.
+ * <p>The derived variable lives on the grid, time axis and chunking of the first variable of its
+ * expression. Inputs on another grid, time axis or chunking are brought onto those by {@link
+ * RegriddedInput} (conservative regridding in space, same instants in time); an input that shares
+ * no area or no time step with the first is refused with a clear message. Values are computed
+ * chunk by chunk when an operator asks for them ({@link #chunks}); nothing is stored.
  */
 final class DerivedVariables {
 
@@ -56,7 +57,7 @@ final class DerivedVariables {
   /** A compiled node, its unit, and the unit as the user would read it in messages. */
   private record Typed(Node node, UnitAlgebra unit, String shown) {}
 
-  private record Derived(CubeEntry entry, Node root, List<CubeEntry> inputs) {}
+  private record Derived(CubeEntry entry, Node root, List<CubeEntry> inputs, Map<String, RegriddedInput> regridded) {}
 
   private final Catalog catalog;
   private final String source;
@@ -108,21 +109,33 @@ final class DerivedVariables {
       unitText = let.unit().get().unit();
     }
     CubeEntry first = inputs.get(0);
+    Map<String, RegriddedInput> regridded = new LinkedHashMap<>();
     BitSet present = first.footprint().present();
     for (CubeEntry in : inputs) {
-      present.and(in.footprint().present());
+      if (RegriddedInput.aligned(first, in)) {
+        present.and(in.footprint().present());
+      } else {
+        RegriddedInput ri = regridded.computeIfAbsent(in.name(), k -> RegriddedInput.onto(first, in));
+        present.and(ri.footprint());
+      }
     }
     CubeDescriptor d = first.descriptor();
     String text = QueryPrinter.print(let);
     CubeDescriptor desc = new CubeDescriptor(name, "", text, unitText, unit.toString(), d.grid(), d.time(), Map.of("derived_from", text));
     CubeEntry entry = new CubeEntry(name, 1, desc, first.layout(), first.chunks(), new Footprint(d.grid().cells(), present),
         new Provenance("(derived in the request)", "", text, "derived", Instant.EPOCH));
-    derived.put(name, new Derived(entry, root, List.copyOf(inputs)));
+    derived.put(name, new Derived(entry, root, List.copyOf(inputs), Map.copyOf(regridded)));
+    String onto = regridded.isEmpty() ? "" : String.join(", ", regridded.keySet()) + " (conservatively onto the grid and steps of " + first.name() + ")";
+    Map<String, String> meta = new LinkedHashMap<>();
+    meta.put("query", source);
+    meta.put(DEFINITION, "yes");
+    meta.put("grid_of", first.name());
     return new ResultTable("derived variable " + name, List.of(
         new Column.Strings("variable", new String[] {name}), new Column.Strings("units", new String[] {unitText}),
         new Column.Strings("definition", new String[] {text}),
-        new Column.Strings("inputs", new String[] {String.join(", ", inputs.stream().map(CubeEntry::name).distinct().toList())})),
-        Map.of("query", source, DEFINITION, "yes"), List.of());
+        new Column.Strings("inputs", new String[] {String.join(", ", inputs.stream().map(CubeEntry::name).distinct().toList())}),
+        new Column.Strings("regridded", new String[] {onto})),
+        meta, List.of());
   }
 
   /** Metadata key marking a result that only reports a definition (CSV leaves these out). */
@@ -169,12 +182,12 @@ final class DerivedVariables {
     }
     if (e instanceof VariableRef v) {
       CubeEntry c = cube(v.variable().name()).orElseThrow(() -> SeriesPlanner.unknownVariable(catalog, v.variable(), source));
-      if (!inputs.isEmpty()) {
-        CubeEntry f = inputs.get(0);
-        if (!f.descriptor().grid().equals(c.descriptor().grid()) || !f.descriptor().time().equals(c.descriptor().time())
-            || !f.layout().equals(c.layout())) {
-          throw QueryException.at(v, source, "'" + c.name() + "' is not on the grid and time axis of '" + f.name() + "'",
-              "derived variables combine cubes on one grid and time axis; regrid one of them first");
+      if (!inputs.isEmpty() && !RegriddedInput.aligned(inputs.get(0), c)) {
+        try {
+          RegriddedInput.onto(inputs.get(0), c);
+        } catch (IllegalArgumentException ex) {
+          throw QueryException.at(v, source, ex.getMessage(),
+              "a derived variable lives on the grid and steps of the first variable of its expression; the others must overlap it");
         }
       }
       inputs.add(c);
@@ -233,7 +246,10 @@ final class DerivedVariables {
         }
         Map<String, float[]> values = new LinkedHashMap<>();
         for (CubeEntry in : d.inputs()) {
-          if (!values.containsKey(in.name())) {
+          RegriddedInput ri = d.regridded().get(in.name());
+          if (ri != null && !values.containsKey(in.name())) {
+            values.put(in.name(), ri.values(chunk.key(), this));
+          } else if (!values.containsKey(in.name())) {
             ChunkRecord same = in.chunks().stream().filter(c -> c.key().equals(chunk.key())).findFirst()
                 .orElseThrow(() -> new IOException("input " + in.name() + " lacks chunk " + chunk.key()));
             values.put(in.name(), get(in, same));

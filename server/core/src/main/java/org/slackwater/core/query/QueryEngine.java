@@ -118,6 +118,35 @@ public final class QueryEngine {
     return new CheckedWatch(w.name(), QueryPrinter.print(w), d);
   }
 
+  /**
+   * Evaluates a stored watch's text day by day over {@code [from, to]} (clipped to the data; see
+   * {@link WatchEvaluator} for the rules). Checks the watch first, so a watch whose variables or
+   * regions went away fails with the same positioned errors as when it was stored.
+   */
+  public org.slackwater.core.watch.WatchRun evaluateWatch(String text, java.time.LocalDate from, java.time.LocalDate to) {
+    Watch w = onlyWatch(text);
+    SeriesPlanner planner = new SeriesPlanner(catalog, weights, text, new DerivedVariables(catalog, text));
+    WatchStatements.check(w, planner);
+    try {
+      return WatchEvaluator.evaluate(w, text, planner, cache, from, to);
+    } catch (IOException e) {
+      throw new UncheckedIOException("reading the data store failed: " + e.getMessage(), e);
+    }
+  }
+
+  /** The first and last day on which every variable of a watch has data. */
+  public java.time.LocalDate[] watchSpan(String text) {
+    return WatchEvaluator.span(onlyWatch(text), new SeriesPlanner(catalog, weights, text, new DerivedVariables(catalog, text)));
+  }
+
+  private static Watch onlyWatch(String text) {
+    Script script = QueryParser.parse(text);
+    if (script.statements().size() != 1 || !(script.statements().get(0) instanceof Watch w)) {
+      throw QueryException.at(script.statements().isEmpty() ? script : script.statements().get(0), text, "send exactly one watch definition", "");
+    }
+    return w;
+  }
+
   /** The plans of a request and the derived variables they may read. */
   private record Analysis(List<Object> plans, List<ResultKind> kinds, DerivedVariables derived) {}
 

@@ -41,6 +41,16 @@ public final class FakeSource implements CubeSource {
     return file;
   }
 
+  /**
+   * A file on a grid of {@code cellDegrees} cells from the same origin, whose days start at
+   * {@code firstDay} (the values follow {@link #value} with t counted from that day).
+   */
+  public static Path writeOnGrid(Path file, String variable, int ny, int nx, int nt, double cellDegrees, java.time.LocalDate firstDay)
+      throws java.io.IOException {
+    Files.writeString(file, "FAKE " + variable + " " + ny + " " + nx + " " + nt + " 0 cell=" + cellDegrees + " start=" + firstDay + "\n");
+    return file;
+  }
+
   /** A file whose {@link #isLand} cells never hold a value. */
   public static Path writeWithLand(Path file, String variable, int ny, int nx, int nt) throws java.io.IOException {
     Files.writeString(file, "FAKE " + variable + " " + ny + " " + nx + " " + nt + " 0 land\n");
@@ -75,12 +85,22 @@ public final class FakeSource implements CubeSource {
     int ny = Integer.parseInt(h[2]), nx = Integer.parseInt(h[3]), nt = Integer.parseInt(h[4]);
     int failAfter = Integer.parseInt(h[5]);
     boolean land = h.length > 6 && h[6].equals("land");
+    double cell = 0.1;
+    java.time.LocalDate first = java.time.LocalDate.of(2014, 1, 1);
+    for (int k = 6; k < h.length; k++) {
+      if (h[k].startsWith("cell=")) {
+        cell = Double.parseDouble(h[k].substring(5));
+      } else if (h[k].startsWith("start=")) {
+        first = java.time.LocalDate.parse(h[k].substring(6));
+      }
+    }
     long[] secs = new long[nt];
-    long start = java.time.LocalDate.of(2014, 1, 1).toEpochDay() * 86400L;
+    long start = first.toEpochDay() * 86400L;
     for (int t = 0; t < nt; t++) {
       secs[t] = start + t * 86400L;
     }
-    CubeDescriptor d = new CubeDescriptor(variable, "sea_water_temperature", "test field", "degC", "K", grid(ny, nx),
+    CubeDescriptor d = new CubeDescriptor(variable, "sea_water_temperature", "test field", "degC", "K",
+        LatLonGrid.regular(43.5, -32, cell, cell, ny, nx),
         new TimeAxis("standard", "days since 2014-01-01", TimeAxis.Alignment.EXACT, secs), Map.of());
     return new SourceCube() {
       int reads;

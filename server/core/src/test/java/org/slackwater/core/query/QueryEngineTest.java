@@ -133,6 +133,136 @@ class QueryEngineTest {
   }
 
   @Test
+  void aDerivedVariableRegridsInputsOfAnotherGridAndMatchesStepsByDate() throws Exception {
+    // A 0.2-degree cube from the same origin: each 0.1-degree cell of temp lies inside exactly one
+    // of its cells, so conservative regridding (Jones 1999, Mon. Wea. Rev. 127, 2204-2210: the
+    // overlap-area weighted mean) gives that cell's value unchanged. It starts on 2014-01-10, so
+    // its step t is temp's step t + 9.
+    ws.ingestor().ingest(FakeSource.writeOnGrid(dir.resolve("c.fake"), "coarse", 5, 4, 100, 0.2, LocalDate.of(2014, 1, 10)), Optional.empty());
+    List<ResultTable> r = ws.engine().run("let both = temp + coarse; "
+        + "map mean both over box(43.5 N, 32 W, 44.4 N, 31.3 W) during 2014-02-01; "
+        + "map mean both over box(43.5 N, 32 W, 44.4 N, 31.3 W) during 2014-01-05");
+    assertEquals("coarse (conservatively onto the grid and steps of temp)", ((Column.Strings) r.get(0).column("regridded")).get(0));
+    ResultTable day = r.get(1);
+    Column.Longs rows = (Column.Longs) day.column("row"), cols = (Column.Longs) day.column("column");
+    Column.Doubles v = (Column.Doubles) day.column("mean_both");
+    int t = 31; // 2014-02-01 in temp; 22 in coarse
+    int checked = 0, missing = 0;
+    for (int i = 0; i < v.size(); i++) {
+      int y = (int) rows.get(i), x = (int) cols.get(i);
+      double expected = (double) FakeSource.value(t, y, x) + FakeSource.value(t - 9, y / 2, x / 2);
+      if (Double.isNaN(expected)) {
+        assertTrue(Double.isNaN(v.get(i)), "cell " + y + "," + x + " should be missing");
+        missing++;
+      } else {
+        assertEquals(expected, v.get(i), 1e-5, "cell " + y + "," + x);
+        checked++;
+      }
+    }
+    assertEquals(63, checked + missing);
+    assertTrue(checked > 40 && missing > 0, checked + " checked, " + missing + " missing");
+    // Before the coarse cube starts, the sum has no value anywhere.
+    Column.Doubles early = (Column.Doubles) r.get(2).column("mean_both");
+    for (int i = 0; i < early.size(); i++) {
+      assertTrue(Double.isNaN(early.get(i)));
+    }
+    ws.ingestor().ingest(FakeSource.writeOnGrid(dir.resolve("l.fake"), "later", 5, 4, 30, 0.2, LocalDate.of(2016, 1, 1)), Optional.empty());
+    QueryException e = assertThrows(QueryException.class, () -> ws.engine().run("let x = temp - later; list variables"));
+    assertEquals("'later' has no time step at the instants of 'temp' (2016-01-01 to 2016-01-30 against 2014-01-01 to 2014-04-30)", e.detail());
+    assertEquals(16, e.column());
+  }
+
+  /** The daily area mean the watches below read, from the area-series statement. */
+  private double[] dailyMean() {
+    return daily("mean");
+  }
+
+  private double[] daily(String statistic) {
+    ResultTable t = ws.engine().run(statistic + " temp over \"Test Box\" from 2014-01-01 to 2014-04-30 by day").get(0);
+    return ((Column.Doubles) t.column(statistic + "_temp")).values();
+  }
+
+  @Test
+  void aWatchHoldsOnTheDaysItsPersistentThresholdHoldsAndRecordsEachRiseAndClearOnce() {
+    double[] m = dailyMean();
+    org.slackwater.core.watch.WatchRun run = ws.engine().evaluateWatch(
+        "watch \"w\" over \"Test Box\" when mean temp above 10.5 degC for 3 days severity alert",
+        LocalDate.of(2014, 1, 1), LocalDate.of(2014, 4, 30));
+    assertEquals(120, run.days().size());
+    int previous = 0, raised = 0;
+    for (int i = 0; i < 120; i++) {
+      // Hand-written rule: above on this day and the two before (a missing day never holds).
+      boolean holds = i >= 2 && m[i] > 10.5 && m[i - 1] > 10.5 && m[i - 2] > 10.5;
+      int level = holds ? 3 : 0;
+      var day = run.days().get(i);
+      assertEquals(level, day.level(), "day " + day.day());
+      org.slackwater.core.watch.WatchState expected = level == 0 ? (previous == 0 ? org.slackwater.core.watch.WatchState.QUIET
+          : org.slackwater.core.watch.WatchState.CLEARED) : previous == 0 ? org.slackwater.core.watch.WatchState.RAISED
+          : org.slackwater.core.watch.WatchState.ONGOING;
+      assertEquals(expected, day.state(), "day " + day.day());
+      raised += expected == org.slackwater.core.watch.WatchState.RAISED ? 1 : 0;
+      assertEquals(m[i], day.values().get("mean temp [degC]"), 1e-12);
+      previous = level;
+    }
+    assertTrue(raised >= 1, "the threshold should be crossed in the test field");
+    // The same threshold in kelvin (10.5 degC = 283.65 K, SI Brochure 9th ed. 2.3.1) gives the same days.
+    org.slackwater.core.watch.WatchRun kelvin = ws.engine().evaluateWatch(
+        "watch \"w\" over \"Test Box\" when mean temp above 283.65 K for 3 days severity alert",
+        LocalDate.of(2014, 1, 1), LocalDate.of(2014, 4, 30));
+    for (int i = 0; i < 120; i++) {
+      assertEquals(run.days().get(i).level(), kelvin.days().get(i).level());
+    }
+    ResultTable table = org.slackwater.core.watch.WatchTables.of(run, true);
+    assertEquals(org.slackwater.core.query.WatchStatements.CAUTION, ((Column.Strings) table.column("caution")).get(0));
+    assertEquals(run.transitions().size(), table.rowCount());
+  }
+
+  @Test
+  void windowsAndThreeValuedLogicFollowTheirDefinitions() {
+    double[] m = dailyMean();
+    org.slackwater.core.watch.WatchRun run = ws.engine().evaluateWatch(
+        "watch \"w\" over \"Test Box\" when not (mean temp over 5 days below 10.2 degC) severity notice"
+            + " when max temp over 1 week at least 10.9 degC and mean temp above 10 degC severity warning",
+        LocalDate.of(2014, 1, 1), LocalDate.of(2014, 4, 30));
+    double[] max = daily("max");
+    for (int i = 0; i < 120; i++) {
+      // 'max temp over 1 week' is the largest daily regional maximum of the last 7 days.
+      Double w5 = window(m, i, 5, false), w7 = window(max, i, 7, true);
+      // Kleene logic: an unknown (no window value) never holds, and 'not unknown' is unknown.
+      boolean r1 = w5 != null && !(w5 < 10.2);
+      boolean r2 = w7 != null && w7 >= 10.9 && !Double.isNaN(m[i]) && m[i] > 10;
+      int level = r2 ? 2 : r1 ? 1 : 0;
+      assertEquals(level, run.days().get(i).level(), "day " + run.days().get(i).day());
+    }
+  }
+
+  /** Mean (or max) of the days with a value over the last n days; null if fewer than half have one. */
+  private static Double window(double[] m, int i, int n, boolean max) {
+    if (i < n - 1) {
+      return null;
+    }
+    double acc = max ? Double.NEGATIVE_INFINITY : 0;
+    int k = 0;
+    for (int j = i - n + 1; j <= i; j++) {
+      if (!Double.isNaN(m[j])) {
+        acc = max ? Math.max(acc, m[j]) : acc + m[j];
+        k++;
+      }
+    }
+    if (2 * k < n || k == 0) {
+      return null;
+    }
+    return max ? acc : acc / k;
+  }
+
+  @Test
+  void aWatchOutsideItsDataIsAnError() {
+    QueryException e = assertThrows(QueryException.class, () -> ws.engine().evaluateWatch(
+        "watch \"w\" over \"Test Box\" when mean temp above 10.5 degC", LocalDate.of(2015, 1, 1), LocalDate.of(2015, 2, 1)));
+    assertEquals("the watch's variables have data together from 2014-01-01 to 2014-04-30, which misses 2015-01-01 to 2015-02-01", e.detail());
+  }
+
+  @Test
   void catalogStatementsListWhatIsLoaded() {
     List<ResultTable> r = ws.engine().run("list variables; list regions; describe temp");
     assertEquals("temp", ((Column.Strings) r.get(0).column("variable")).get(0));
