@@ -49,7 +49,8 @@ import ucar.nc2.Variable;
 public final class NetCdfCubeSource implements CubeSource {
 
   private static final int BUFFER_SIZE = 1 << 18;
-  private static final String[] GLOBAL_PROVENANCE = {"title", "history", "source", "Conventions", "references", "comment"};
+  private static final String[] GLOBAL_PROVENANCE = {"title", "history", "source", "Conventions", "references", "comment",
+      "slackwater_reprocessed"};
   private static final String[] VARIABLE_PROVENANCE = {"cell_methods", "comment"};
 
   static {

@@ -98,7 +98,8 @@ public final class DemoCommand implements Callable<Integer> {
           && have.get().provenance().sourceSha256().equals(FileDigest.sha256(f))) {
         continue;
       }
-      for (IngestReport r : ws.ingestor().ingest(f, Optional.empty())) {
+      // A regenerated demo file replaces its cube rather than appending to it.
+      for (IngestReport r : ws.ingestor().ingest(f, org.slackwater.core.ingest.IngestOptions.defaults().replacingCube())) {
         System.out.printf("ingested %s: %,d values in %.2f s (%.0f MB/s)%n", r.cube(), r.values(), r.seconds(), r.valueMegabytesPerSecond());
       }
     }

@@ -202,10 +202,15 @@ final class Endpoints {
       return Problem.of(HttpResponseStatus.FORBIDDEN, "Server-side ingest is off", "start the server with --ingest-root DIR to allow ingesting files under DIR");
     }
     String rel;
+    org.slackwater.core.ingest.IngestOptions options = org.slackwater.core.ingest.IngestOptions.defaults();
     try {
-      rel = JSON.readTree(body).path("path").asText("");
+      JsonNode req = JSON.readTree(body);
+      rel = req.path("path").asText("");
+      options = req.path("reprocessed").asBoolean(false) ? options.asReprocessed() : options;
+      options = req.path("replace_cube").asBoolean(false) ? options.replacingCube() : options;
     } catch (IOException e) {
-      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The ingest request is not JSON", "send {\"path\": \"relative/path/file.nc\"}");
+      return Problem.of(HttpResponseStatus.BAD_REQUEST, "The ingest request is not JSON",
+          "send {\"path\": \"relative/path/file.nc\"}, optionally with \"reprocessed\": true or \"replace_cube\": true");
     }
     Path root = config.ingestRoot().get().toAbsolutePath().normalize();
     Path file = root.resolve(rel).normalize();
@@ -216,11 +221,17 @@ final class Endpoints {
       return Problem.of(HttpResponseStatus.NOT_FOUND, "No such file", "there is no file '" + rel + "' under the ingest root");
     }
     try {
-      List<IngestReport> reports = workspace.ingestor().ingest(file, Optional.empty());
-      reports.forEach(r -> watchService.afterIngest(r.cube()));
+      List<IngestReport> reports = workspace.ingestor().ingest(file, options);
       ArrayNode a = JSON.createArrayNode();
       for (IngestReport r : reports) {
-        a.addObject().put("cube", r.cube()).put("version", r.version()).put("values", r.values()).put("seconds", r.seconds());
+        ObjectNode o = a.addObject().put("cube", r.cube()).put("change", r.change().name().toLowerCase(java.util.Locale.ROOT))
+            .put("version", r.version()).put("values", r.values()).put("seconds", r.seconds()).put("summary", r.summary());
+        o.put("previous_version", r.previousVersion());
+        r.appended().ifPresent(x -> o.put("appended", x.toString()));
+        r.replaced().ifPresent(x -> o.put("replaced", x.toString()));
+        ArrayNode gaps = o.putArray("gaps");
+        r.gaps().forEach(g -> gaps.add(g.toString()));
+        o.put("note", r.note());
       }
       return Reply.text(HttpResponseStatus.OK, JSON_TYPE, a.toString());
     } catch (IngestException e) {

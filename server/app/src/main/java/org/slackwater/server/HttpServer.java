@@ -28,9 +28,12 @@ public final class HttpServer implements AutoCloseable {
   private final ChannelGroup connections = new DefaultChannelGroup(GlobalEventExecutor.INSTANCE);
 
   private final WatchService watches;
+  private final org.slackwater.core.ingest.Ingestor.Subscription afterIngest;
 
   private HttpServer(Workspace workspace, ServerConfig config, org.slackwater.alerts.RetryPolicy retry) throws InterruptedException {
     this.watches = new WatchService(workspace, java.time.Clock.systemUTC(), java.time.Duration.ofSeconds(5), retry);
+    // Every ingest that changes a cube (HTTP, drop folder) runs the watches reading it on the new days.
+    this.afterIngest = workspace.onIngest(r -> watches.afterIngest(r.cube()));
     ServerBootstrap b = new ServerBootstrap()
         .group(boss, io)
         .channel(NioServerSocketChannel.class)
@@ -38,6 +41,7 @@ public final class HttpServer implements AutoCloseable {
     try {
       this.channel = b.bind(config.host(), config.port()).sync().channel();
     } catch (RuntimeException | InterruptedException e) {
+      afterIngest.close();
       watches.close();
       throw e;
     }
@@ -79,6 +83,7 @@ public final class HttpServer implements AutoCloseable {
     boss.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
     io.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
     workers.shutdownGracefully(0, 2, TimeUnit.SECONDS).awaitUninterruptibly();
+    afterIngest.close();
     watches.close();
   }
 }

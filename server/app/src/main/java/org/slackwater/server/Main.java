@@ -15,7 +15,7 @@ import picocli.CommandLine.Parameters;
 /** The server's command line: {@code serve}, {@code demo}, {@code ingest}, {@code bench-ingest}. */
 @Command(name = "slackwater", mixinStandardHelpOptions = true, version = "Slackwater 0.1.0",
     description = "Water-quality analytics server for gridded environmental data.",
-    subcommands = {Main.Serve.class, DemoCommand.class, Main.Ingest.class, IngestBenchmark.class})
+    subcommands = {Main.Serve.class, DemoCommand.class, Main.Ingest.class, IngestBenchmark.class, HttpBenchmark.class})
 public final class Main implements Runnable {
 
   public static void main(String[] args) {
@@ -68,10 +68,19 @@ public final class Main implements Runnable {
     @CommandLine.Mixin
     ServeOptions serve;
 
+    @Option(names = "--drop-folder", paramLabel = "DIR",
+        description = "Directory watched for new files to ingest or append; done/ and failed/ inside it receive them (default: off).")
+    Path dropFolder;
+
     @Override
     public Integer call() throws Exception {
-      try (Workspace ws = Workspace.open(data, serve.earth); HttpServer server = HttpServer.start(ws, serve.config())) {
+      ServerConfig config = dropFolder == null ? serve.config() : serve.config().withDropFolder(dropFolder);
+      try (Workspace ws = Workspace.open(data, serve.earth); HttpServer server = HttpServer.start(ws, config);
+          DropFolder drop = config.dropFolder().isPresent() ? DropFolder.start(ws.ingestor(), config.dropFolder().get()) : null) {
         System.out.println("listening on " + server.url());
+        if (drop != null) {
+          System.out.println("watching the drop folder " + drop.directory());
+        }
         server.awaitClose();
       }
       return 0;
@@ -86,6 +95,12 @@ public final class Main implements Runnable {
     @Option(names = "--variable", description = "Only this variable of each file.")
     String variable;
 
+    @Option(names = "--reprocessed", description = "The files are reprocessed versions: their values replace the days the cube holds.")
+    boolean reprocessed;
+
+    @Option(names = "--replace-cube", description = "Replace the whole cube with the file instead of appending to it.")
+    boolean replaceCube;
+
     @Parameters(arity = "1..*", description = "Files to ingest.")
     List<Path> files;
 
@@ -95,8 +110,11 @@ public final class Main implements Runnable {
       try (Workspace ws = Workspace.open(data)) {
         for (Path f : files) {
           try {
-            for (IngestReport r : ws.ingestor().ingest(f, Optional.ofNullable(variable))) {
-              System.out.printf("%s: cube %s version %d, %,d values in %.2f s%n", f.getFileName(), r.cube(), r.version(), r.values(), r.seconds());
+            org.slackwater.core.ingest.IngestOptions o = org.slackwater.core.ingest.IngestOptions.of(Optional.ofNullable(variable));
+            o = reprocessed ? o.asReprocessed() : o;
+            o = replaceCube ? o.replacingCube() : o;
+            for (IngestReport r : ws.ingestor().ingest(f, o)) {
+              System.out.printf("%s: %s%n", f.getFileName(), r.summary());
             }
           } catch (IngestException e) {
             System.err.println("error: " + e.getMessage());

@@ -12,15 +12,23 @@ import java.util.Optional;
  * @param maxBodyBytes larger request bodies get 413
  * @param adminToken bearer token for the admin endpoints; empty = admin endpoints refused
  * @param ingestRoot directory under which {@code POST /api/cubes} may read files; empty = off
+ * @param dropFolder directory watched for files to ingest (see {@link DropFolder}); empty = off
  */
-public record ServerConfig(String host, int port, int maxBodyBytes, Optional<String> adminToken, Optional<Path> ingestRoot) {
+public record ServerConfig(String host, int port, int maxBodyBytes, Optional<String> adminToken, Optional<Path> ingestRoot,
+    Optional<Path> dropFolder) {
   public ServerConfig {
     Objects.requireNonNull(host);
     Objects.requireNonNull(adminToken);
     Objects.requireNonNull(ingestRoot);
+    Objects.requireNonNull(dropFolder);
     if (port < 0 || port > 65535) {
       throw new IllegalArgumentException("port must be 0..65535");
     }
+  }
+
+  /** Without a drop folder. */
+  public ServerConfig(String host, int port, int maxBodyBytes, Optional<String> adminToken, Optional<Path> ingestRoot) {
+    this(host, port, maxBodyBytes, adminToken, ingestRoot, Optional.empty());
   }
 
   public static ServerConfig local(int port) {
@@ -28,10 +36,14 @@ public record ServerConfig(String host, int port, int maxBodyBytes, Optional<Str
   }
 
   public ServerConfig withIngestRoot(Path root) {
-    return new ServerConfig(host, port, maxBodyBytes, adminToken, Optional.of(root));
+    return new ServerConfig(host, port, maxBodyBytes, adminToken, Optional.of(root), dropFolder);
   }
 
   public ServerConfig withAdminToken(String token) {
-    return new ServerConfig(host, port, maxBodyBytes, Optional.of(token), ingestRoot);
+    return new ServerConfig(host, port, maxBodyBytes, Optional.of(token), ingestRoot, dropFolder);
+  }
+
+  public ServerConfig withDropFolder(Path dir) {
+    return new ServerConfig(host, port, maxBodyBytes, adminToken, ingestRoot, Optional.of(dir));
   }
 }

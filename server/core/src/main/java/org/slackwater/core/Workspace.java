@@ -5,10 +5,12 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.ServiceLoader;
+import java.util.function.Consumer;
 import org.apache.arrow.memory.BufferAllocator;
 import org.apache.arrow.memory.RootAllocator;
 import org.slackwater.core.analytics.ChunkCache;
 import org.slackwater.core.catalog.Catalog;
+import org.slackwater.core.ingest.IngestReport;
 import org.slackwater.core.ingest.Ingestor;
 import org.slackwater.core.query.QueryEngine;
 import org.slackwater.core.query.WeightsCache;
@@ -93,6 +95,16 @@ public final class Workspace implements AutoCloseable {
 
   public Ingestor ingestor() {
     return ingestor;
+  }
+
+  /**
+   * Calls {@code listener} with the report of every cube an ingest changes (created, appended,
+   * reprocessed, replaced; not "unchanged"), on the ingesting thread after the catalog commit, so
+   * the catalog already shows the new version. A listener that throws is logged and does not fail
+   * the ingest. Close the subscription to stop.
+   */
+  public Ingestor.Subscription onIngest(Consumer<IngestReport> listener) {
+    return ingestor.onIngest(listener);
   }
 
   public QueryEngine engine() {

@@ -16,6 +16,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalInt;
 import java.util.Set;
 import org.slackwater.core.cube.CubeDescriptor;
 import org.slackwater.core.cube.Footprint;
@@ -27,11 +28,16 @@ import org.slackwater.core.store.ChunkRecord;
 
 /**
  * The embedded, transactional catalog (SQLite over JDBC): which cube versions are published,
- * their descriptions, chunk files with checksums, provenance; and the named regions.
+ * their descriptions, chunk files with checksums, provenance, each cube's version history; and
+ * the named regions.
  *
  * <p>Only the current version of each cube is listed; publishing a new version replaces the row
- * in one transaction, so readers see the old version or the new one, never a mixture. Methods are
- * synchronized: one connection, few writers, short transactions.
+ * and adds its history entry in one transaction, so readers see the old version or the new one,
+ * never a mixture. The history ({@code cube_history}, one {@link VersionRecord} per version) is
+ * kept when a cube is removed, so version numbers are never reused and a version directory name
+ * always means one set of files. A catalog written before the history existed gets one {@code
+ * CREATED} entry per cube when opened. Methods are synchronized: one connection, few writers,
+ * short transactions.
  */
 public final class Catalog implements AutoCloseable {
 
@@ -74,10 +80,22 @@ public final class Catalog implements AutoCloseable {
               name TEXT PRIMARY KEY COLLATE NOCASE, text TEXT NOT NULL, owner_sha256 TEXT NOT NULL,
               created_at TEXT NOT NULL, version INTEGER NOT NULL)""");
         s.execute("""
+            CREATE TABLE IF NOT EXISTS cube_history (
+              cube TEXT NOT NULL, version INTEGER NOT NULL, previous_version INTEGER NOT NULL, change TEXT NOT NULL,
+              source_file TEXT NOT NULL, source_sha256 TEXT NOT NULL, source_variable TEXT NOT NULL,
+              reader TEXT NOT NULL, ingested_at TEXT NOT NULL, steps INTEGER NOT NULL,
+              appended_first_index INTEGER, appended_last_index INTEGER, appended_count INTEGER,
+              appended_first TEXT, appended_last TEXT,
+              replaced_first_index INTEGER, replaced_last_index INTEGER, replaced_count INTEGER,
+              replaced_first TEXT, replaced_last TEXT,
+              PRIMARY KEY (cube, version))""");
+        s.execute("""
             CREATE TABLE IF NOT EXISTS region (
               name TEXT PRIMARY KEY COLLATE NOCASE, kind TEXT NOT NULL, geojson TEXT NOT NULL, updated_at TEXT NOT NULL)""");
       }
-      return new Catalog(c);
+      Catalog catalog = new Catalog(c);
+      catalog.recordHistoryOfOlderCubes();
+      return catalog;
     } catch (SQLException e) {
       throw new IOException("cannot open the catalog " + file + ": " + e.getMessage(), e);
     }
@@ -112,17 +130,36 @@ public final class Catalog implements AutoCloseable {
     return Optional.empty();
   }
 
-  /** The next version number for {@code name} (1 for a new cube). */
+  /**
+   * The next version number for {@code name}: one more than any version it ever had, current or
+   * in its history (1 for a name never used).
+   */
   public synchronized int nextVersion(String name) {
-    return cube(name).map(c -> c.version() + 1).orElse(1);
+    int current = cube(name).map(CubeEntry::version).orElse(0);
+    try (PreparedStatement ps = db.prepareStatement("SELECT MAX(version) FROM cube_history WHERE cube = ?")) {
+      ps.setString(1, name);
+      try (ResultSet rs = ps.executeQuery()) {
+        return Math.max(current, rs.next() ? rs.getInt(1) : 0) + 1;
+      }
+    } catch (SQLException e) {
+      throw new CatalogException("reading the history of cube '" + name + "' failed: " + e.getMessage(), e);
+    }
   }
 
   /**
-   * Makes {@code entry} the current version of its cube, in one transaction.
+   * Makes {@code entry} the current version of its cube and adds {@code record} to its history, in
+   * one transaction.
    *
-   * @return the version it replaced, if any (its files may now be deleted)
+   * @param expectedPrevious the version the caller built on (empty for a new cube); if the cube's
+   *     current version is another, nothing is written
+   * @return the version it replaced, if any (its files may be retired now)
+   * @throws CatalogException if the cube changed meanwhile or the database fails; nothing changed
    */
-  public synchronized Optional<Integer> publish(CubeEntry entry) {
+  public synchronized Optional<Integer> publish(CubeEntry entry, VersionRecord record, OptionalInt expectedPrevious) {
+    if (!record.cube().equals(entry.name()) || record.version() != entry.version()) {
+      throw new IllegalArgumentException("history record " + record.cube() + " v" + record.version()
+          + " does not describe entry " + entry.name() + " v" + entry.version());
+    }
     cubeCache = null;
     try {
       db.setAutoCommit(false);
@@ -135,6 +172,11 @@ public final class Catalog implements AutoCloseable {
           }
         }
       }
+      if (!previous.map(OptionalInt::of).orElse(OptionalInt.empty()).equals(expectedPrevious)) {
+        throw new CatalogException("cube '" + entry.name() + "' changed while this file was being ingested (it is now "
+            + previous.map(v -> "version " + v).orElse("absent") + "); nothing changed, ingest the file again");
+      }
+      insertHistory(record);
       try (PreparedStatement del = db.prepareStatement("DELETE FROM cube WHERE name = ?")) {
         del.setString(1, entry.name());
         del.executeUpdate();
@@ -179,12 +221,131 @@ public final class Catalog implements AutoCloseable {
     } catch (SQLException e) {
       rollback();
       throw new CatalogException("publishing cube '" + entry.name() + "' failed, nothing changed: " + e.getMessage(), e);
+    } catch (CatalogException e) {
+      rollback();
+      throw e;
     } finally {
       autoCommit();
     }
   }
 
-  /** Removes a cube from the catalog; returns the version it had, if any. */
+  /** Every version {@code cube} ever had, oldest first, including versions of a removed cube of that name. */
+  public synchronized List<VersionRecord> history(String cube) {
+    List<VersionRecord> out = new ArrayList<>();
+    try (PreparedStatement ps = db.prepareStatement("SELECT * FROM cube_history WHERE cube = ? ORDER BY version")) {
+      ps.setString(1, cube);
+      try (ResultSet rs = ps.executeQuery()) {
+        while (rs.next()) {
+          out.add(historyRecord(rs));
+        }
+      }
+    } catch (SQLException e) {
+      throw new CatalogException("reading the history of cube '" + cube + "' failed: " + e.getMessage(), e);
+    }
+    return out;
+  }
+
+  /**
+   * The history of the cube's current content: its current version's record and those before it
+   * back to the one that created or replaced the cube. Empty when no cube has the name.
+   */
+  public synchronized List<VersionRecord> lineage(String cube) {
+    Optional<CubeEntry> current = cube(cube);
+    if (current.isEmpty()) {
+      return List.of();
+    }
+    List<VersionRecord> all = history(cube);
+    List<VersionRecord> out = new ArrayList<>();
+    for (int i = all.size() - 1; i >= 0; i--) {
+      VersionRecord r = all.get(i);
+      if (r.version() > current.get().version()) {
+        continue;
+      }
+      out.add(0, r);
+      if (r.startsLineage()) {
+        break;
+      }
+    }
+    return List.copyOf(out);
+  }
+
+  private void insertHistory(VersionRecord r) throws SQLException {
+    try (PreparedStatement ps = db.prepareStatement("INSERT INTO cube_history VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)")) {
+      ps.setString(1, r.cube());
+      ps.setInt(2, r.version());
+      ps.setInt(3, r.previousVersion());
+      ps.setString(4, r.change().name());
+      Provenance p = r.provenance();
+      ps.setString(5, p.sourceFile());
+      ps.setString(6, p.sourceSha256());
+      ps.setString(7, p.sourceVariable());
+      ps.setString(8, p.reader());
+      ps.setString(9, p.ingestedAt().toString());
+      ps.setInt(10, r.steps());
+      setRange(ps, 11, r.appended());
+      setRange(ps, 16, r.replaced());
+      ps.executeUpdate();
+    }
+  }
+
+  private static void setRange(PreparedStatement ps, int at, Optional<StepRange> range) throws SQLException {
+    if (range.isPresent()) {
+      StepRange s = range.get();
+      ps.setInt(at, s.firstIndex());
+      ps.setInt(at + 1, s.lastIndex());
+      ps.setInt(at + 2, s.count());
+      ps.setString(at + 3, s.first().toString());
+      ps.setString(at + 4, s.last().toString());
+    } else {
+      for (int i = 0; i < 5; i++) {
+        ps.setNull(at + i, java.sql.Types.NULL);
+      }
+    }
+  }
+
+  private static VersionRecord historyRecord(ResultSet rs) throws SQLException {
+    Provenance p = new Provenance(rs.getString("source_file"), rs.getString("source_sha256"), rs.getString("source_variable"),
+        rs.getString("reader"), Instant.parse(rs.getString("ingested_at")));
+    return new VersionRecord(rs.getString("cube"), rs.getInt("version"), rs.getInt("previous_version"),
+        VersionRecord.Change.valueOf(rs.getString("change")), p, rs.getInt("steps"), range(rs, "appended"), range(rs, "replaced"));
+  }
+
+  private static Optional<StepRange> range(ResultSet rs, String prefix) throws SQLException {
+    String first = rs.getString(prefix + "_first");
+    if (first == null) {
+      return Optional.empty();
+    }
+    return Optional.of(new StepRange(rs.getInt(prefix + "_first_index"), rs.getInt(prefix + "_last_index"), rs.getInt(prefix + "_count"),
+        Instant.parse(first), Instant.parse(rs.getString(prefix + "_last"))));
+  }
+
+  /**
+   * Gives each cube published before the history existed one CREATED entry for its current
+   * version, from its provenance, so that its source file is known to the history as well.
+   */
+  private synchronized void recordHistoryOfOlderCubes() {
+    List<CubeEntry> missing = new ArrayList<>();
+    for (CubeEntry c : cubes()) {
+      if (history(c.name()).stream().noneMatch(r -> r.version() == c.version())) {
+        missing.add(c);
+      }
+    }
+    for (CubeEntry c : missing) {
+      int steps = c.descriptor().time().size();
+      Optional<StepRange> all = steps == 0 ? Optional.empty()
+          : Optional.of(new StepRange(0, steps - 1, steps, c.descriptor().time().instant(0), c.descriptor().time().instant(steps - 1)));
+      try {
+        insertHistory(new VersionRecord(c.name(), c.version(), 0, VersionRecord.Change.CREATED, c.provenance(), steps, all, Optional.empty()));
+      } catch (SQLException e) {
+        throw new CatalogException("recording the history of cube '" + c.name() + "' failed: " + e.getMessage(), e);
+      }
+    }
+  }
+
+  /**
+   * Removes a cube from the catalog; returns the version it had, if any (retire its files). Its
+   * history stays, so a cube later created under the name continues the version numbers.
+   */
   public synchronized Optional<Integer> remove(String name) {
     Optional<Integer> v = cube(name).map(CubeEntry::version);
     cubeCache = null;

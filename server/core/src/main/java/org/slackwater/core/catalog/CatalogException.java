@@ -4,6 +4,10 @@ package org.slackwater.core.catalog;
 public class CatalogException extends RuntimeException {
   private static final long serialVersionUID = 1L;
 
+  public CatalogException(String message) {
+    super(message);
+  }
+
   public CatalogException(String message, Throwable cause) {
     super(message, cause);
   }

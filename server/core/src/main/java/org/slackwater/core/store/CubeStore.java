@@ -5,11 +5,14 @@ import java.io.UncheckedIOException;
 import java.nio.channels.FileChannel;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.DirectoryStream;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
+import java.time.Duration;
 import java.util.Comparator;
+import java.util.List;
 import java.util.Objects;
 import java.util.Set;
 import java.util.UUID;
@@ -31,21 +34,46 @@ import org.apache.arrow.memory.BufferAllocator;
  * any failed, and then fsyncs the staging directory itself; so at the rename, as before, every
  * file and every directory entry of the version is on disk. The order on disk is therefore: all
  * chunk files, the staging directory, the rename (parent directory), the catalog row.
+ *
+ * <p>A new version that keeps chunks of the current one (an append rewrites only the time chunks
+ * it touches) {@linkplain Staging#reuse hard-links} those chunk files into its staging directory:
+ * chunk files are never written twice, so two versions may share one file, and deleting a version
+ * directory leaves the other's links intact. File systems without hard links get a copy.
+ *
+ * <p>A version that stops being current is {@linkplain #retire retired}: its files stay while
+ * queries may still read it (see {@link VersionRetirement}) and are deleted once safe, at a later
+ * retirement or {@link #sweepRetired sweep}, or at the next start.
  */
 public final class CubeStore {
 
+  /** How long a replaced version stays readable: longer than any query is expected to run. */
+  public static final Duration DEFAULT_RETIRE_GRACE = Duration.ofMinutes(10);
+
   private final Path cubesDir;
   private final BufferAllocator allocator;
+  private final VersionRetirement retirement;
 
   /** The allocator is borrowed, not owned: the caller closes it after the store is no longer used. */
   public CubeStore(Path root, BufferAllocator allocator) {
+    this(root, allocator, DEFAULT_RETIRE_GRACE);
+  }
+
+  /** As above, keeping replaced versions for {@code retireGrace} (zero: as soon as no read holds them). */
+  public CubeStore(Path root, BufferAllocator allocator, Duration retireGrace) {
     this.cubesDir = root.resolve("cubes");
     this.allocator = allocator;
+    this.retirement = new VersionRetirement(retireGrace, System::nanoTime, (cube, version) -> deleteTree(versionDir(cube, version)));
     try {
       Files.createDirectories(cubesDir);
     } catch (IOException e) {
       throw new UncheckedIOException("cannot create the data directory " + cubesDir, e);
     }
+  }
+
+  /** Keeps a version's files from being deleted until closed. */
+  public interface Pin extends AutoCloseable {
+    @Override
+    void close();
   }
 
   public BufferAllocator allocator() {
@@ -64,9 +92,46 @@ public final class CubeStore {
     return cubesDir.resolve(cube).resolve("v" + version);
   }
 
-  /** Reads one chunk of a published version into {@code dest}. */
+  /**
+   * Reads one chunk of a published version into {@code dest}, holding the version while it reads.
+   *
+   * @throws IOException also when the version was retired and deleted before the read began
+   */
   public void read(String cube, int version, ChunkRecord chunk, float[] dest) throws IOException {
-    ChunkCodec.read(allocator, versionDir(cube, version).resolve(chunk.file()), chunk.key(), dest);
+    try (Pin p = pin(cube, version)) {
+      ChunkCodec.read(allocator, versionDir(cube, version).resolve(chunk.file()), chunk.key(), dest);
+    }
+  }
+
+  /**
+   * Holds a version's files until the pin is closed, for a reader that wants a version to outlive
+   * the grace period (a long export).
+   *
+   * @throws IOException if the version was retired and its files are gone already
+   */
+  public Pin pin(String cube, int version) throws IOException {
+    retirement.pin(cube, version);
+    return () -> retirement.unpin(cube, version);
+  }
+
+  /**
+   * Marks a version that the catalog no longer names for deletion once no reader can still be using
+   * it, and deletes every retired version that is safe to delete now.
+   *
+   * @return the {@code cube/vN} directories deleted by this call
+   */
+  public List<String> retire(String cube, int version) throws IOException {
+    return retirement.retire(cube, version);
+  }
+
+  /** Deletes the retired versions that are safe to delete now; returns their {@code cube/vN} names. */
+  public List<String> sweepRetired() throws IOException {
+    return retirement.sweep();
+  }
+
+  /** The {@code cube/vN} names of versions retired and not deleted yet. */
+  public Set<String> retiredVersions() {
+    return retirement.pending();
   }
 
   /**
@@ -92,8 +157,19 @@ public final class CubeStore {
     }
   }
 
-  /** Deletes a published version's files (after the catalog has moved on from it). */
+  /**
+   * Removes a published version's files after the catalog has moved on from it: the same as {@link
+   * #retire}, so queries still reading it are not cut short.
+   */
   public void deleteVersion(String cube, int version) throws IOException {
+    retire(cube, version);
+  }
+
+  /**
+   * Deletes at once a version that was renamed into place but whose catalog commit failed: no
+   * reader has ever seen it.
+   */
+  public void deleteUncommitted(String cube, int version) throws IOException {
     deleteTree(versionDir(cube, version));
   }
 
@@ -163,6 +239,31 @@ public final class CubeStore {
       } finally {
         encoders.push(encoder);
       }
+    }
+
+    /**
+     * Puts chunk {@code rec} of version {@code fromVersion} (the current one) into this version
+     * unchanged: a hard link to the same file, or a copy forced to disk where the file system has
+     * no hard links. The record, checksum included, stays valid.
+     *
+     * @throws IOException if the source file is missing or not the size the record says
+     */
+    public ChunkRecord reuse(int fromVersion, ChunkRecord rec) throws IOException {
+      Path from = versionDir(cube, fromVersion).resolve(rec.file());
+      Path to = dir.resolve(rec.file());
+      long size = Files.size(from);
+      if (size != rec.bytes()) {
+        throw new IOException("chunk file " + from + " is " + size + " bytes but the catalog records " + rec.bytes()
+            + "; the store is damaged: restore the data directory from a backup or re-ingest the cube");
+      }
+      try {
+        Files.createLink(to, from);
+      } catch (UnsupportedOperationException | FileSystemException e) {
+        Files.deleteIfExists(to);
+        Files.copy(from, to);
+        force.submit(FileChannel.open(to, StandardOpenOption.WRITE), to);
+      }
+      return rec;
     }
 
     /**

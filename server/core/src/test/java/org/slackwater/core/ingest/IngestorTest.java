@@ -71,14 +71,50 @@ class IngestorTest {
   }
 
   @Test
-  void aSecondIngestPublishesVersionTwoAndRemovesVersionOne() throws Exception {
+  void theSameFileTwiceIsANoOpAndReplacingTheCubeRetiresVersionOne() throws Exception {
     Path f = FakeSource.write(dir.resolve("temp.fake"), "temp", 3, 3, 10, 0);
     try (Workspace ws = open()) {
       ws.ingestor().ingest(f, Optional.empty());
-      ws.ingestor().ingest(f, Optional.empty());
+      IngestReport again = ws.ingestor().ingest(f, Optional.empty()).get(0);
+      assertEquals(IngestReport.Change.UNCHANGED, again.change());
+      assertTrue(again.note().startsWith("already ingested: version 1 of cube 'temp' came from temp.fake"), again.note());
+      assertEquals(1, ws.catalog().cube("temp").orElseThrow().version());
+      // The same bytes under another name, as a whole-cube replacement: version 2; version 1 is
+      // retired, kept while queries may still read it (the workspace's grace period).
+      Path copy = Files.copy(f, dir.resolve("temp-copy.fake"));
+      IngestReport replaced = ws.ingestor().ingest(copy, IngestOptions.defaults().replacingCube()).get(0);
+      assertEquals(IngestReport.Change.UNCHANGED, replaced.change(), "one file made the cube: replacing it with itself changes nothing");
+      Files.writeString(copy, Files.readString(f).replace("FAKE temp 3 3 10 0", "FAKE temp 3 3 12 0"));
+      replaced = ws.ingestor().ingest(copy, IngestOptions.defaults().replacingCube()).get(0);
+      assertEquals(IngestReport.Change.REPLACED, replaced.change());
       assertEquals(2, ws.catalog().cube("temp").orElseThrow().version());
-      assertFalse(Files.exists(dir.resolve("store/cubes/temp/v1")));
       assertTrue(Files.exists(dir.resolve("store/cubes/temp/v2")));
+      assertEquals(java.util.Set.of("temp/v1"), ws.store().retiredVersions());
+    }
+    try (Workspace ws = open()) {
+      assertFalse(Files.exists(dir.resolve("store/cubes/temp/v1")), "a retired version is removed at the next start");
+      assertEquals(2, ws.catalog().cube("temp").orElseThrow().version());
+    }
+  }
+
+  @Test
+  void workspaceListenersHearOfNewCubesAfterTheCommitButNotOfNoOps() throws Exception {
+    Path a = FakeSource.write(dir.resolve("a.fake"), "temp", 3, 3, 10, 0);
+    Path b = FakeSource.write(dir.resolve("b.fake"), "salt", 3, 3, 10, 0);
+    try (Workspace ws = open()) {
+      List<String> heard = new java.util.concurrent.CopyOnWriteArrayList<>();
+      Ingestor.Subscription broken = ws.onIngest(r -> {
+        throw new IllegalStateException("a listener's own bug");
+      });
+      Ingestor.Subscription sub = ws.onIngest(r -> heard.add(r.cube() + " " + r.change() + " committed as v"
+          + ws.catalog().cube(r.cube()).orElseThrow().version()));
+      ws.ingestor().ingest(a, Optional.empty());
+      ws.ingestor().ingest(a, Optional.empty());
+      sub.close();
+      broken.close();
+      ws.ingestor().ingest(b, Optional.empty());
+      assertEquals(List.of("temp CREATED committed as v1"), heard);
+      assertTrue(ws.catalog().cube("salt").isPresent());
     }
   }
 
