@@ -5,36 +5,91 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Locale;
 import picocli.CommandLine.Option;
 
 /**
- * How a query result is delivered: the format asked of the server, an optional aligned-table view
- * of CSV for people, and an optional file instead of standard output.
+ * How a result is delivered: the format asked of the server (CSV, JSON, an Arrow IPC stream or a
+ * PNG plot with its size), an optional aligned-table view of CSV for people, and where it goes
+ * (standard output, or a file with {@code --out FILE}; {@code --out -} is standard output said
+ * explicitly).
  *
- * <p>Standard output gets the server's bytes unchanged (plus a final line feed if the answer lacks
- * one, so the prompt starts on a new line); a file gets exactly the server's bytes. {@code --table}
- * replaces either with the aligned view. Failure modes ({@link CliFailure}, {@link Cli#LOCAL}):
- * {@code --table} with JSON, a file that cannot be written.
+ * <p>Standard output gets the server's bytes unchanged; text answers get a final line feed if they
+ * lack one, so the prompt starts on a new line; binary answers (PNG, Arrow) are never touched. A
+ * file gets exactly the server's bytes. {@code --table} replaces either with the aligned view.
+ *
+ * <p>Failure modes ({@link CliFailure}, {@link Cli#LOCAL}), all found before the request is sent:
+ * {@code --table} with anything but CSV; {@code --width}, {@code --height} or {@code --scale}
+ * without {@code --format png}, or not positive; a binary format bound for standard output when
+ * that is a terminal and {@code --out -} was not given (the bytes would garble the terminal). A
+ * file that cannot be written is also {@link Cli#LOCAL}.
  */
 final class OutputOptions {
-  enum Format { csv, json }
+  enum Format {
+    csv(false), json(false), arrow(true), png(true);
 
-  @Option(names = "--format", defaultValue = "csv", paramLabel = "csv|json",
-      description = "Result format: csv or json (default ${DEFAULT-VALUE}).")
+    final boolean binary;
+
+    Format(boolean binary) {
+      this.binary = binary;
+    }
+  }
+
+  static final String STANDARD_OUTPUT = "-";
+
+  @Option(names = "--format", defaultValue = "csv", paramLabel = "csv|json|arrow|png",
+      description = {"Result format (default ${DEFAULT-VALUE}): csv, json, arrow (an Arrow IPC stream)",
+          "or png (a plot); arrow and png need --out FILE, or --out - to write them to standard output."})
   Format format = Format.csv;
 
   @Option(names = {"-t", "--table"}, description = "Show CSV as aligned columns with the units in the header (for reading, not for scripts).")
   boolean table;
 
-  @Option(names = {"-o", "--out"}, paramLabel = "FILE", description = "Write the result to FILE instead of standard output.")
+  @Option(names = {"-o", "--out"}, paramLabel = "FILE", description = "Write the result to FILE instead of standard output ('-': standard output).")
   Path out;
 
-  /** The value of the server's {@code ?format=} parameter. */
-  String formatParameter() throws CliFailure {
+  @Option(names = "--width", paramLabel = "PIXELS", description = "Width of a PNG plot (server default if not given).")
+  Integer width;
+
+  @Option(names = "--height", paramLabel = "PIXELS", description = "Height of a PNG plot (server default if not given).")
+  Integer height;
+
+  @Option(names = "--scale", paramLabel = "FACTOR", description = "Pixel density of a PNG plot, e.g. 2 for high-density screens.")
+  Double scale;
+
+  /**
+   * The URL query parameters for the server ({@code format=...} and, for PNG, the size), after
+   * checking the options against each other and against where the bytes will go.
+   */
+  String parameters(Terminal terminal) throws CliFailure {
     if (table && format != Format.csv) {
       throw new CliFailure(Cli.LOCAL, "--table shows CSV results; drop --table or use --format csv");
     }
-    return format.name();
+    boolean sized = width != null || height != null || scale != null;
+    if (sized && format != Format.png) {
+      throw new CliFailure(Cli.LOCAL, "--width, --height and --scale size a PNG plot; add --format png or drop them");
+    }
+    if ((width != null && width <= 0) || (height != null && height <= 0)) {
+      throw new CliFailure(Cli.LOCAL, "--width and --height are pixels and must be positive, e.g. --width 800 --height 400");
+    }
+    if (scale != null && !(scale > 0 && Double.isFinite(scale))) {
+      throw new CliFailure(Cli.LOCAL, "--scale must be a positive number, e.g. 2");
+    }
+    if (format.binary && out == null && terminal.stdout()) {
+      throw new CliFailure(Cli.LOCAL, "not writing " + format.name().toUpperCase(Locale.ROOT) + " bytes to the terminal; save them with --out FILE."
+          + format.name() + ", or give --out - to send them to standard output anyway (to pipe them on)");
+    }
+    StringBuilder p = new StringBuilder("format=").append(format.name());
+    if (width != null) {
+      p.append("&width=").append(width);
+    }
+    if (height != null) {
+      p.append("&height=").append(height);
+    }
+    if (scale != null) {
+      p.append("&scale=").append(scale);
+    }
+    return p.toString();
   }
 
   int deliver(Answer answer, PrintStream stdout, PrintStream stderr) throws CliFailure {
@@ -47,7 +102,7 @@ final class OutputOptions {
             + "); run without --table to see it as sent");
       }
     }
-    if (out != null) {
+    if (out != null && !out.toString().equals(STANDARD_OUTPUT)) {
       try {
         Files.write(out, bytes);
       } catch (IOException e) {
@@ -58,7 +113,7 @@ final class OutputOptions {
       return Cli.OK;
     }
     stdout.write(bytes, 0, bytes.length);
-    if (bytes.length > 0 && bytes[bytes.length - 1] != '\n') {
+    if (!format.binary && bytes.length > 0 && bytes[bytes.length - 1] != '\n') {
       stdout.println();
     }
     stdout.flush();

@@ -10,7 +10,8 @@ import java.util.Optional;
  * of its body.
  *
  * @see Cli exit codes: {@link Cli#QUERY_ERROR} for a problem with a line and column, {@link
- *     Cli#REFUSED} for any other refusal
+ *     Cli#NOT_ALLOWED} for 401 and 403, {@link Cli#NOT_FOUND} for 404, {@link Cli#REFUSED} for any
+ *     other refusal
  */
 final class Problems {
   private static final int MAX_SHOWN = 300;
@@ -25,7 +26,7 @@ final class Problems {
         shown = shown.substring(0, MAX_SHOWN) + "...";
       }
       err.println("error: the server answered " + status + (shown.isEmpty() ? "" : ": " + shown));
-      return Cli.REFUSED;
+      return byStatus(status);
     }
     Optional<String> line = FlatJson.number(body, "line");
     Optional<String> column = FlatJson.number(body, "column");
@@ -42,6 +43,15 @@ final class Problems {
     }
     err.println("error: " + detail.get());
     FlatJson.string(body, "hint").ifPresent(h -> err.println("hint: " + h));
-    return Cli.REFUSED;
+    return byStatus(status);
+  }
+
+  /** The exit code of a refusal without a position in the query. */
+  static int byStatus(int status) {
+    return switch (status) {
+      case 401, 403 -> Cli.NOT_ALLOWED;
+      case 404 -> Cli.NOT_FOUND;
+      default -> Cli.REFUSED;
+    };
   }
 }

@@ -9,7 +9,11 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.ParentCommand;
 
-/** {@code query}: runs query text ({@code POST /api/query}) and prints or saves the result. */
+/**
+ * {@code query}: runs query text ({@code POST /api/query}) and prints or saves the result in the
+ * format asked for. A result that carries a caution (a watch statement's check) gets it printed on
+ * standard error as well.
+ */
 @Command(name = "query", mixinStandardHelpOptions = true,
     description = {"Run a query and print (or save) the result.",
         "The query is TEXT, the contents of -f FILE.swq, or standard input (no TEXT, or TEXT '-')."})
@@ -34,7 +38,7 @@ final class QueryCommand implements Callable<Integer> {
   /** Sends {@code query} and delivers the answer as {@code output} says; returns the exit code. */
   static int run(Cli cli, String query, OutputOptions output) throws CliFailure {
     ServerConnection c = cli.connection();
-    Answer a = c.exchange(c.request("/api/query?format=" + output.formatParameter())
+    Answer a = c.exchange(c.request("/api/query?" + output.parameters(cli.terminal))
         .header("Content-Type", "text/plain; charset=utf-8")
         .POST(java.net.http.HttpRequest.BodyPublishers.ofString(query, StandardCharsets.UTF_8)));
     if (!a.ok()) {
@@ -45,6 +49,8 @@ final class QueryCommand implements Callable<Integer> {
       }
       return code;
     }
-    return output.deliver(a, cli.out, cli.err);
+    int code = output.deliver(a, cli.out, cli.err);
+    Caution.printIfAny(a, cli.err);
+    return code;
   }
 }

@@ -36,6 +36,6 @@ class FlatJsonTest {
     assertEquals(Optional.of("4.2E-2"), FlatJson.number(objects.get(0), "seconds"));
     assertEquals(Optional.of("odd } name"), FlatJson.string(objects.get(1), "cube"));
     assertEquals(Optional.of("-1"), FlatJson.number(objects.get(1), "values"));
-    assertEquals("ingested rainfall version 2: 6,570 values in 0.04 s", IngestCommand.receipt(objects.get(0)));
+    assertEquals("ingested rainfall version 2: 6,570 values in 0.04 s", IngestCommand.receipt(Json.parse(objects.get(0))));
   }
 }

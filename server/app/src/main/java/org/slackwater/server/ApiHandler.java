@@ -13,7 +13,6 @@ import io.netty.handler.codec.http.HttpResponseStatus;
 import io.netty.handler.codec.http.HttpUtil;
 import io.netty.handler.codec.http.HttpVersion;
 import io.netty.handler.codec.http.QueryStringDecoder;
-import java.net.URLDecoder;
 import java.nio.charset.StandardCharsets;
 import java.security.MessageDigest;
 import java.util.List;
@@ -176,8 +175,9 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
     return v == null || v.isEmpty() ? null : v.get(0);
   }
 
+  /** Path segments arrive decoded already ({@link QueryStringDecoder#path()}): decoding again would turn %2B into a space. */
   private static String decode(String s) {
-    return URLDecoder.decode(s, StandardCharsets.UTF_8);
+    return s;
   }
 
   static void write(ChannelHandlerContext ctx, FullHttpRequest req, Reply reply) {

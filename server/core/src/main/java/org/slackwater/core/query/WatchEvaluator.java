@@ -117,7 +117,9 @@ final class WatchEvaluator {
     if (!a.equals(from) || !b.equals(to)) {
       warnings.add("evaluated from " + a + " to " + b + ", the days with data for every variable of the watch");
     }
-    WatchEvaluator e = new WatchEvaluator(w, planner, cache, earliest, b);
+    // Series run to the end of the common data, not to 'to': a baseline (and the climatology built
+    // from it) must not depend on which days are asked for.
+    WatchEvaluator e = new WatchEvaluator(w, planner, cache, earliest, last);
     return e.run(text, a, b, warnings);
   }
 

@@ -256,6 +256,18 @@ class QueryEngineTest {
   }
 
   @Test
+  void aDaysValuesDoNotDependOnWhichDaysAreEvaluated() {
+    String w = "watch \"w\" over \"Test Box\" when standardized anomaly of mean temp over 3 days above 0.5 against 2014-01-01 to 2014-04-30";
+    var shortRun = ws.engine().evaluateWatch(w, LocalDate.of(2014, 2, 1), LocalDate.of(2014, 2, 5));
+    var longRun = ws.engine().evaluateWatch(w, LocalDate.of(2014, 1, 20), LocalDate.of(2014, 4, 30));
+    var a = shortRun.days().get(2);
+    var b = longRun.days().stream().filter(d -> d.day().equals(a.day())).findFirst().orElseThrow();
+    assertEquals(a.values(), b.values());
+    assertEquals(a.state(), b.state());
+    assertTrue(a.values().values().stream().noneMatch(v -> v.isNaN()));
+  }
+
+  @Test
   void aWatchOutsideItsDataIsAnError() {
     QueryException e = assertThrows(QueryException.class, () -> ws.engine().evaluateWatch(
         "watch \"w\" over \"Test Box\" when mean temp above 10.5 degC", LocalDate.of(2015, 1, 1), LocalDate.of(2015, 2, 1)));
