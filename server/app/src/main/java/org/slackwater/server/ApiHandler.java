@@ -106,6 +106,9 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       }
       return notAllowed("PUT");
     }
+    if (path.equals("/api/watch-presets")) {
+      return m.equals(HttpMethod.GET) ? endpoints.watchPresets(param(uri, "region")) : notAllowed("GET");
+    }
     if (path.equals("/api/watches")) {
       if (m.equals(HttpMethod.GET)) {
         return endpoints.watches();

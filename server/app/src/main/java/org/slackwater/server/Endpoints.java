@@ -371,6 +371,36 @@ final class Endpoints {
     }
   }
 
+  /**
+   * The watch presets built on published guideline values, each with its source and limits; with
+   * {@code region}, each preset's watch text for that region, checked against the data (ready to
+   * store with POST /api/watches).
+   */
+  Reply watchPresets(String region) {
+    ObjectNode o = JSON.createObjectNode();
+    ArrayNode a = o.putArray("presets");
+    for (var p : org.slackwater.core.watch.WatchPresets.ALL) {
+      ObjectNode n = a.addObject().put("id", p.id()).put("title", p.title()).put("source", p.source()).put("limits", p.limits());
+      if (region == null) {
+        n.put("template", p.template());
+        continue;
+      }
+      String text;
+      try {
+        text = p.text(region);
+        workspace.engine().checkWatch(text);
+      } catch (IllegalArgumentException e) {
+        return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad region name", e.getMessage());
+      } catch (QueryException e) {
+        return Problem.of(HttpResponseStatus.UNPROCESSABLE_ENTITY, "The preset does not fit this server's data",
+            "preset " + p.id() + " for region '" + region + "': " + e.detail() + (e.hint().isBlank() ? "" : " (" + e.hint() + ")"));
+      }
+      n.put("text", text);
+    }
+    o.put("caution", WatchStatements.CAUTION);
+    return Reply.text(HttpResponseStatus.OK, JSON_TYPE, o.toString());
+  }
+
   /** Stores a watch's alert destinations (a JSON array: webhook or e-mail channels). */
   Reply putWatchChannels(String name, String body) {
     Optional<StoredWatch> w = watchService.watch(name);

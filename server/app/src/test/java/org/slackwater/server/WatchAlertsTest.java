@@ -162,6 +162,39 @@ class WatchAlertsTest {
     alertsAreDeliveredOnceThroughReEvaluationAndRestart();
   }
 
+  @Test
+  void presetsCarryTheirSourceAndHoldExactlyWhereTheCitedLevelIsReached() throws Exception {
+    HttpResponse<String> r = send("GET", server.url() + "/api/watch-presets?region=" + enc("Outer Bay"), "", false);
+    assertEquals(200, r.statusCode(), r.body());
+    JsonNode preset = JSON.readTree(r.body()).path("presets").get(0);
+    assertTrue(preset.path("source").asText().startsWith("WHO (2003) Guidelines for Safe Recreational Water Environments"));
+    assertTrue(preset.path("limits").asText().contains("cyanobacteria"));
+    String text = preset.path("text").asText().replace("Outer Bay chlorophyll-recreational", "Preset test");
+    assertEquals(201, send("POST", server.url() + "/api/watches", text, true).statusCode());
+    try {
+      HttpResponse<String> run = send("POST", server.url() + "/api/watches/" + enc("Preset test") + "/evaluate?from=2014-06-01&to=2014-07-31&format=json", "", true);
+      assertEquals(200, run.statusCode(), run.body());
+      HttpResponse<String> mean = send("POST", server.url() + "/api/query?format=json",
+          "mean chlorophyll over \"Outer Bay\" from 2014-06-01 to 2014-07-31 by day", false);
+      JsonNode days = JSON.readTree(run.body()).path("results").get(0).path("rows");
+      JsonNode means = JSON.readTree(mean.body()).path("results").get(0).path("rows");
+      assertEquals(61, days.size());
+      int notice = 0;
+      for (int i = 0; i < 61; i++) {
+        assertEquals(days.get(i).get(0).asText(), means.get(i).get(0).asText());
+        JsonNode m = means.get(i).get(1);
+        // 1 ug/L = 1 mg/m3 (SI Brochure, 9th ed.: 1 L = 1 dm3): the levels are 10 and 50 mg m-3.
+        String expected = m.isNull() ? "none" : m.asDouble() >= 50 ? "warning" : m.asDouble() >= 10 ? "notice" : "none";
+        assertEquals(expected, days.get(i).get(2).asText(), "day " + days.get(i).get(0).asText());
+        notice += expected.equals("none") ? 0 : 1;
+      }
+      assertTrue(notice > 0, "the 2014 bloom reaches the first level over the Outer Bay");
+    } finally {
+      send("DELETE", server.url() + "/api/watches/" + enc("Preset test"), "", true);
+    }
+    assertEquals(422, send("GET", server.url() + "/api/watch-presets?region=" + enc("Nowhere Bay"), "", false).statusCode());
+  }
+
   /** Runs after the watch is stored (JUnit gives no order between test methods). */
   private void alertsAreDeliveredOnceThroughReEvaluationAndRestart() throws Exception {
     String channels = "[{\"id\": \"test-hook\", \"kind\": \"webhook\", \"url\": \"http://127.0.0.1:" + receiverPort + "/hook\", \"secret\": \"" + SECRET + "\"}]";
