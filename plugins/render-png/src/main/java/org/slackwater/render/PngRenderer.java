@@ -5,6 +5,7 @@ import java.awt.image.BufferedImage;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 import org.slackwater.core.query.ResultKind;
 import org.slackwater.core.result.ResultTable;
 
@@ -22,11 +23,16 @@ import org.slackwater.core.result.ResultTable;
  *   <li>map, correlation_map: the cells in a colour map (viridis; a diverging map centred at 0 for
  *       differences, anomalies and correlations), the region outline, a colour bar, missing cells
  *       hatched grey.</li>
+ *   <li>backtest (a watch tried on history): a timeline of the watch's firings in lanes by
+ *       outcome and the events as markers, caught or missed, with the summary and the caution.</li>
+ *   <li>watch_run (a watch evaluated day by day): a level strip with the raise and clear days,
+ *       a panel per condition value below it, and the caution.</li>
  * </ul>
  *
  * Definitions ({@code let}) are skipped when the query also has something to plot. Failure modes:
  * {@link PlotException} for results that are tables rather than plots (watch, definition,
- * catalog), for several results that do not fit one picture, for empty results and for results
+ * catalog), for several results that do not fit one picture, for empty results (except a
+ * backtest: one without events or firings still plots, the watch never fired) and for results
  * without the columns their kind needs; the message says what to ask for instead. Thread-safe:
  * every call builds its own chart.
  */
@@ -64,8 +70,17 @@ public final class PngRenderer {
       throw new PlotException("the query gave no results, so there is nothing to plot");
     }
     List<ResultTable> plotted = new ArrayList<>();
+    // Per plotted result: its ResultKind, or null for a watch output (backtest, watch run), named in 'names'.
     List<ResultKind> kinds = new ArrayList<>();
+    List<String> names = new ArrayList<>();
     for (ResultTable t : results) {
+      Optional<String> watch = WatchFigures.label(t);
+      if (watch.isPresent()) {
+        plotted.add(t);
+        kinds.add(null);
+        names.add(watch.get().replace('_', ' '));
+        continue;
+      }
       ResultKind k = Tables.kind(t);
       if (k == ResultKind.DEFINITION && results.size() > 1) {
         continue; // a 'let' that prepares the statement after it
@@ -73,12 +88,15 @@ public final class PngRenderer {
       refuseTables(t, k);
       plotted.add(t);
       kinds.add(k);
+      names.add(Tables.kindName(k));
     }
     if (plotted.isEmpty()) {
       throw new PlotException("the query defines variables but asks for nothing to plot; add a statement that uses them");
     }
-    for (ResultTable t : plotted) {
-      if (t.rowCount() == 0) {
+    for (int i = 0; i < plotted.size(); i++) {
+      ResultTable t = plotted.get(i);
+      boolean emptyIsFine = kinds.get(i) == null && WatchFigures.plotsWithoutRows(WatchFigures.label(t).orElseThrow());
+      if (t.rowCount() == 0 && !emptyIsFine) {
         throw new PlotException("the result '" + t.title() + "' has no rows, so there is nothing to plot; check the region and the period"
             + " (format=json shows the warnings)");
       }
@@ -87,10 +105,13 @@ public final class PngRenderer {
       return SeriesChart.figure(plotted);
     }
     if (plotted.size() > 1) {
-      throw new PlotException("the query gives " + plotted.size() + " results (" + String.join(", ", kinds.stream().map(Tables::kindName).toList())
+      throw new PlotException("the query gives " + plotted.size() + " results (" + String.join(", ", names)
           + ") and one PNG holds one plot (only series stack into panels); send each statement as its own query, or ask for format=json");
     }
     ResultTable t = plotted.get(0);
+    if (kinds.get(0) == null) {
+      return WatchFigures.figure(t, WatchFigures.label(t).orElseThrow());
+    }
     return switch (kinds.get(0)) {
       case CORRELATION -> CorrelationChart.figure(t);
       case RANKING -> RankingChart.figure(t);

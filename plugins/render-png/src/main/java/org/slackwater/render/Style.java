@@ -42,6 +42,32 @@ final class Style {
   static final Color EVENT = new Color(0x8a, 0x6d, 0x1f);
 
   /**
+   * Backtest firings by outcome: Okabe and Ito's colour-universal-design palette (Okabe and Ito
+   * 2008, "Color Universal Design", from memory): blue, sky blue and vermillion stay apart under
+   * protanopia, deuteranopia and tritanopia (checked in the tests). Lead and false alarm are close
+   * in grey, so outcomes also differ by lane and by pattern (solid, stripes, cross-hatch).
+   */
+  static final Color LEAD = new Color(0x00, 0x72, 0xb2);
+  static final Color DURING_EVENT = new Color(0x56, 0xb4, 0xe9);
+  static final Color FALSE_ALARM = new Color(0xd5, 0x5e, 0x00);
+  /** Edge of the light during-event bars, so they keep 3:1 against white (WCAG 2.1, 1.4.11) where the fill alone has 2.3:1. */
+  static final Color DURING_EVENT_EDGE = new Color(0x3d, 0x8f, 0xc4);
+
+  /**
+   * Watch levels: no rule holds (a pale grey), then notice, warning and alert from ColorBrewer's
+   * sequential YlOrBr (7 classes: #fec44f, #ec7014, #8c2d04; C. A. Brewer, colorbrewer2.org),
+   * one hue getting darker, so the order survives colour-blindness and grey print.
+   */
+  static final Color LEVEL_NONE = new Color(0xec, 0xef, 0xf1);
+  static final Color NOTICE = new Color(0xfe, 0xc4, 0x4f);
+  static final Color WARNING = new Color(0xec, 0x70, 0x14);
+  static final Color ALERT = new Color(0x8c, 0x2d, 0x04);
+
+  /** The caution box: dark text on a pale warm ground, framed, so it reads as part of the result. */
+  static final Color CAUTION_BACKGROUND = new Color(0xfb, 0xf5, 0xe6);
+  static final Color CAUTION_FRAME = new Color(0x8c, 0x7a, 0x4e);
+
+  /**
    * Map cells without a value: a neutral grey that no colour map contains, hatched. Mid grey is
    * the neutral farthest from both maps: every viridis entry and every RdBu colour differs from it
    * by more than 40 in some channel (checked in the tests).
@@ -58,6 +84,9 @@ final class Style {
   static final Font TICK = new Font(FAMILY, Font.PLAIN, 11);
   static final Font NOTE = new Font(FAMILY, Font.PLAIN, 10);
   static final Font LEGEND = new Font(FAMILY, Font.PLAIN, 11);
+  /** The caution of watch outputs: as large as the subtitle, its first words bold. */
+  static final Font CAUTION = new Font(FAMILY, Font.PLAIN, 12);
+  static final Font CAUTION_LEAD = new Font(FAMILY, Font.BOLD, 12);
 
   static final Stroke LINE = new BasicStroke(2.0f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
   static final Stroke THIN = new BasicStroke(1.0f);

@@ -162,7 +162,7 @@ public final class WatchBacktest {
     List<String> warnings = new ArrayList<>(r.warnings());
     warnings.add(WatchStatements.CAUTION);
     String title = "backtest of watch \"" + r.run().watch() + "\", " + r.run().from() + " to " + r.run().to() + ": " + r.caught() + " of "
-        + r.events().size() + " events caught, " + r.falseAlarms() + " false alarms";
+        + r.events().size() + " events caught, " + r.falseAlarms() + (r.falseAlarms() == 1 ? " false alarm" : " false alarms");
     return new ResultTable(title, List.of(new Column.Strings("kind", kind), new Column.Dates("day", day), new Column.Dates("end", end),
         new Column.Strings("peak_level", peak), new Column.Strings("outcome", outcome), new Column.Dates("matched", matched),
         new Column.Doubles("lead_days", "day", lead), new Column.Strings("caution", caution)), meta, warnings);
