@@ -117,6 +117,10 @@ final class WatchService implements AutoCloseable {
       return;
     }
     List<Channel> channels = ChannelCodec.parseList(json.get(), "channels of watch '" + w.name() + "'");
+    if (run.transitions().isEmpty()) {
+      return;
+    }
+    Optional<byte[]> png = plot(run);
     boolean any = false;
     for (var d : run.transitions()) {
       String level = d.state() == WatchState.CLEARED ? "none" : d.levelName();
@@ -125,11 +129,23 @@ final class WatchService implements AutoCloseable {
       d.values().forEach((k, v) -> values.put(k, v == null || v.isNaN() ? "no data" : Double.toString(v)));
       String condition = d.state() == WatchState.CLEARED ? "no rule holds any more"
           : "rules " + d.rulesHolding().stream().map(String::valueOf).collect(Collectors.joining(", ")) + " of: " + w.text();
-      Alert a = new Alert(key, w.name(), d.state().label(), level, d.day(), condition, values, WatchStatements.CAUTION, clock.instant(), Optional.empty());
+      Alert a = new Alert(key, w.name(), d.state().label(), level, d.day(), condition, values, WatchStatements.CAUTION, clock.instant(), png);
       any |= outbox.enqueue(a, channels);
     }
     if (any) {
       worker.wake();
+    }
+  }
+
+  /** The run as a picture for the alert (e-mail attachment); none if it cannot be drawn. */
+  private static Optional<byte[]> plot(WatchRun run) {
+    try {
+      return Optional.of(org.slackwater.render.PngRenderer.render(List.of(org.slackwater.core.watch.WatchTables.of(run, false)),
+          new org.slackwater.render.PlotOptions(900, 560, 1)));
+    } catch (RuntimeException e) {
+      // An alert without its picture still goes out: the text carries the values and the caution.
+      LOG.warn("watch '{}': no picture for the alert: {}", run.watch(), e.getMessage());
+      return Optional.empty();
     }
   }
 

@@ -220,6 +220,10 @@ class WatchAlertsTest {
     for (JsonNode alert : received) {
       assertTrue(alert.path("_signature_ok").asBoolean(), "signature of " + alert);
       assertEquals(WatchStatements.CAUTION, alert.path("caution").asText());
+      // The run's picture travels with the alert: a PNG (signature from the PNG specification, ISO/IEC 15948).
+      byte[] png = java.util.Base64.getDecoder().decode(alert.path("png_base64").asText());
+      assertEquals(0x89, png[0] & 0xff);
+      assertEquals("PNG", new String(png, 1, 3, StandardCharsets.US_ASCII));
       assertEquals(alert.path("_key_header").asText(), alert.path("idempotency_key").asText());
     }
 
