@@ -1,10 +1,9 @@
 package org.slackwater.core.analytics;
 
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.LinkedHashMap;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
@@ -21,10 +20,13 @@ import org.slackwater.core.store.ChunkRecord;
  * region's.
  *
  * <p>Reads only the chunks that hold the region's cells and the requested steps, through the
- * {@link ChunkCache}. Time chunks are independent (they fill disjoint steps), so they run in
- * parallel on the common fork-join pool. Within a chunk the region's cells are grouped into runs
- * of consecutive columns, so the per-step loop reads memory contiguously and keeps its
- * accumulators in registers.
+ * {@link ChunkCache}. Each chunk is one task ({@link WorkSharing}: the caller and the common
+ * fork-join pool's workers take chunks until none is left) that sums its own steps; the chunks'
+ * sums are then added in time and catalog order, so results do not depend on the threads. Each
+ * tile's cells are laid out once per call ({@link TileCells}: runs of consecutive columns with
+ * their areas), and {@link StepSums} adds up four steps per pass over them, so the loop reads
+ * memory contiguously and keeps four independent sums in registers. Results equal a plain per-step
+ * loop's to rounding (the valid area is summed in another order; see {@link StepSums}).
  */
 public final class AreaStatistics {
 
@@ -49,27 +51,30 @@ public final class AreaStatistics {
     Accumulators acc = new Accumulators(n, gather ? weights.size() : 0);
     Map<Long, int[]> byTile = cellsByTile(cube, weights);
 
-    // Chunks grouped by their first step: each group writes only its own steps.
+    // One task per chunk, in time order and within a time in the catalog's order.
     TreeMap<Integer, List<ChunkRecord>> byTime = new TreeMap<>();
+    Map<Long, TileCells> tiles = new HashMap<>();
     for (ChunkRecord chunk : cube.chunks()) {
       ChunkKey k = chunk.key();
-      if (Math.max(from, k.t0()) < Math.min(to, k.t0() + k.nt()) && byTile.containsKey(tileId(k.y0(), k.x0()))) {
+      long tile = tileId(k.y0(), k.x0());
+      int[] members = byTile.get(tile);
+      if (Math.max(from, k.t0()) < Math.min(to, k.t0() + k.nt()) && members != null) {
         byTime.computeIfAbsent(k.t0(), t -> new ArrayList<>()).add(chunk);
+        tiles.computeIfAbsent(tile, id -> TileCells.of(members, weights, k));
       }
     }
-    try {
-      byTime.values().parallelStream().forEach(group -> {
-        for (ChunkRecord chunk : group) {
-          try {
-            accumulate(cache.get(cube, chunk), chunk.key(), byTile.get(tileId(chunk.key().y0(), chunk.key().x0())),
-                weights, from, to, extremes, gather, acc);
-          } catch (IOException e) {
-            throw new UncheckedIOException(e);
-          }
-        }
-      });
-    } catch (UncheckedIOException e) {
-      throw e.getCause();
+    List<ChunkRecord> work = new ArrayList<>();
+    byTime.values().forEach(work::addAll);
+    ChunkTotals[] parts = new ChunkTotals[work.size()];
+    WorkSharing.run(work.size(), i -> {
+      ChunkRecord chunk = work.get(i);
+      ChunkKey k = chunk.key();
+      parts[i] = ChunkTotals.of(cache.get(cube, chunk), k, tiles.get(tileId(k.y0(), k.x0())), from, to, extremes || gather,
+          gather ? acc.gathered : null);
+    });
+    // Added up in task order, so the sums do not depend on which thread ran which chunk.
+    for (ChunkTotals p : parts) {
+      p.addTo(acc, from);
     }
 
     double[] value = new double[n], frac = new double[n];
@@ -115,55 +120,60 @@ public final class AreaStatistics {
     }
   }
 
-  private static void accumulate(float[] v, ChunkKey k, int[] members, CellWeights weights, int from, int to,
-      boolean extremes, boolean gather, Accumulators acc) {
-    int t0 = Math.max(from, k.t0()), t1 = Math.min(to, k.t0() + k.nt());
-    int plane = k.ny() * k.nx();
-    int m = members.length;
-    // Members are in row-major order; cut them into runs of consecutive offsets.
-    int[] offset = new int[m];
-    double[] area = new double[m];
-    for (int j = 0; j < m; j++) {
-      int i = members[j];
-      offset[j] = (weights.row(i) - k.y0()) * k.nx() + (weights.column(i) - k.x0());
-      area[j] = weights.area(i);
+  /** One chunk's per-step sums over its tile's cells (and extremes, if asked), steps t0 to t1. */
+  private static final class ChunkTotals {
+    final int t0;
+    final double[] sumW, sumWV, min, max;
+    final int[] count;
+
+    private ChunkTotals(int t0, int steps, boolean extremes) {
+      this.t0 = t0;
+      sumW = new double[steps];
+      sumWV = new double[steps];
+      count = new int[steps];
+      min = extremes ? new double[steps] : null;
+      max = extremes ? new double[steps] : null;
     }
-    int[] runStart = new int[m], runFirst = new int[m], runLen = new int[m];
-    int runs = OffsetRuns.cut(offset, m, runStart, runFirst, runLen);
-    for (int t = t0; t < t1; t++) {
-      int base = (t - k.t0()) * plane;
-      int s = t - from;
-      double w = 0, wv = 0;
-      int c = 0;
-      for (int r = 0; r < runs; r++) {
-        int o = base + runStart[r], a0 = runFirst[r], len = runLen[r];
-        for (int i = 0; i < len; i++) {
-          float f = v[o + i];
-          if (f == f) { // not NaN
-            double a = area[a0 + i];
-            w += a;
-            wv += a * f;
-            c++;
-          }
-        }
+
+    /** {@code gathered}, if given, receives each valid value at [step - from][weights index]. */
+    static ChunkTotals of(float[] v, ChunkKey k, TileCells cells, int from, int to, boolean extremes, float[][] gathered) {
+      int t0 = Math.max(from, k.t0()), t1 = Math.min(to, k.t0() + k.nt());
+      ChunkTotals p = new ChunkTotals(t0, t1 - t0, extremes);
+      StepSums.add(v, k.t0(), t0, t1, t0, cells, p.sumW, p.sumWV, p.count);
+      if (!extremes) {
+        return p;
       }
-      acc.sumW[s] += w;
-      acc.sumWV[s] += wv;
-      acc.count[s] += c;
-      if (extremes || gather) {
-        double lo = acc.min[s], hi = acc.max[s];
-        for (int j = 0; j < m; j++) {
+      int[] offset = cells.offset, members = cells.members;
+      for (int t = t0; t < t1; t++) {
+        int base = (t - k.t0()) * cells.plane;
+        double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+        float[] into = gathered != null ? gathered[t - from] : null;
+        for (int j = 0; j < offset.length; j++) {
           float f = v[base + offset[j]];
           if (f == f) {
             if (f < lo) lo = f;
             if (f > hi) hi = f;
-            if (gather) {
-              acc.gathered[s][members[j]] = f;
+            if (into != null) {
+              into[members[j]] = f; // each cell lies in one tile: no other task writes it
             }
           }
         }
-        acc.min[s] = lo;
-        acc.max[s] = hi;
+        p.min[t - t0] = lo;
+        p.max[t - t0] = hi;
+      }
+      return p;
+    }
+
+    void addTo(Accumulators acc, int from) {
+      for (int j = 0; j < count.length; j++) {
+        int s = t0 - from + j;
+        acc.sumW[s] += sumW[j];
+        acc.sumWV[s] += sumWV[j];
+        acc.count[s] += count[j];
+        if (min != null) {
+          acc.min[s] = Math.min(acc.min[s], min[j]);
+          acc.max[s] = Math.max(acc.max[s], max[j]);
+        }
       }
     }
   }
@@ -193,16 +203,33 @@ public final class AreaStatistics {
   /** The region's cells that are in the cube's footprint, grouped by tile, each group in row-major order. */
   private static Map<Long, int[]> cellsByTile(CubeEntry cube, CellWeights weights) {
     int rows = cube.layout().rows(), cols = cube.layout().columns();
-    Map<Long, List<Integer>> lists = new LinkedHashMap<>();
+    int across = cube.layout().chunksAlong(cube.descriptor().grid().nx(), cols);
+    int tiles = across * cube.layout().chunksAlong(cube.descriptor().grid().ny(), rows);
+    int[] tileOf = new int[weights.size()], count = new int[tiles];
     for (int i = 0; i < weights.size(); i++) {
-      if (!cube.footprint().contains(weights.index(i))) {
-        continue;
+      if (cube.footprint().contains(weights.index(i))) {
+        tileOf[i] = weights.row(i) / rows * across + weights.column(i) / cols;
+        count[tileOf[i]]++;
+      } else {
+        tileOf[i] = -1;
       }
-      int y0 = weights.row(i) / rows * rows, x0 = weights.column(i) / cols * cols;
-      lists.computeIfAbsent(tileId(y0, x0), key -> new ArrayList<>()).add(i);
     }
-    Map<Long, int[]> out = new LinkedHashMap<>();
-    lists.forEach((k, v) -> out.put(k, v.stream().mapToInt(Integer::intValue).toArray()));
+    int[][] members = new int[tiles][];
+    for (int k = 0; k < tiles; k++) {
+      members[k] = count[k] > 0 ? new int[count[k]] : null;
+      count[k] = 0;
+    }
+    for (int i = 0; i < weights.size(); i++) {
+      if (tileOf[i] >= 0) {
+        members[tileOf[i]][count[tileOf[i]]++] = i;
+      }
+    }
+    Map<Long, int[]> out = new HashMap<>();
+    for (int k = 0; k < tiles; k++) {
+      if (members[k] != null) {
+        out.put(tileId(k / across * rows, k % across * cols), members[k]);
+      }
+    }
     return out;
   }
 

@@ -13,4 +13,14 @@ public enum AreaModel {
     return this == SPHERE ? SphericalArea.cell(latSouth, latNorth, lonWest, lonEast)
         : EllipsoidalArea.cell(latSouth, latNorth, lonWest, lonEast);
   }
+
+  /** The part of {@link #cell} that depends on latitude only, computed once per grid row. */
+  double band(double latSouth, double latNorth) {
+    return this == SPHERE ? SphericalArea.band(latSouth, latNorth) : EllipsoidalArea.band(latSouth, latNorth);
+  }
+
+  /** {@link #cell} from its row's {@link #band}: bit for bit the same value. */
+  double cellFromBand(double band, double lonWest, double lonEast) {
+    return this == SPHERE ? SphericalArea.cellFromBand(band, lonWest, lonEast) : EllipsoidalArea.cellFromBand(band, lonWest, lonEast);
+  }
 }

@@ -18,7 +18,17 @@ public final class EllipsoidalArea {
   private EllipsoidalArea() {}
 
   public static double cell(double latSouth, double latNorth, double lonWest, double lonEast) {
-    return A * A * Math.toRadians(lonEast - lonWest) * (q(latNorth) - q(latSouth)) / 2;
+    return cellFromBand(band(latSouth, latNorth), lonWest, lonEast);
+  }
+
+  /** The latitude factor q(φ₂) − q(φ₁) of {@link #cell}, shared by every cell of a row. */
+  static double band(double latSouth, double latNorth) {
+    return q(latNorth) - q(latSouth);
+  }
+
+  /** {@link #cell} from its row's {@link #band}; the same operations in the same order, so the same bits. */
+  static double cellFromBand(double band, double lonWest, double lonEast) {
+    return A * A * Math.toRadians(lonEast - lonWest) * band / 2;
   }
 
   static double q(double latDeg) {

@@ -43,6 +43,43 @@ class SphericalAreaTest {
   }
 
   /**
+   * One edge's ∫ (sin φ − sin φ₀) dλ against Gauss-Legendre quadrature of the same integrand
+   * (Hipparchus GaussIntegratorFactory, high-precision Legendre rule) along φ linear in λ: a cell-sized edge, one a
+   * 1e-9 degree from horizontal (where Δλ (cos φ₁ − cos φ₂) / Δφ would lose most of its digits to
+   * cancellation), a long steep edge, and a westward one.
+   */
+  @ParameterizedTest
+  @CsvSource({"-31.0, 44.0, -30.99, 44.004, 44.0", "-31.0, 44.00007, -30.99, 44.000070001, 44.0",
+      "-31.5, 43.2, -30.8, 45.9, 43.2", "-30.2, 44.61, -30.21, 44.6, 44.6"})
+  void edgeIntegralMatchesQuadrature(double lon1, double lat1, double lon2, double lat2, double refDeg) {
+    double l1 = Math.toRadians(lon1), l2 = Math.toRadians(lon2), p1 = Math.toRadians(lat1), p2 = Math.toRadians(lat2);
+    double ref = Math.toRadians(refDeg);
+    // sin φ − sin φ₀ = 2 cos((φ + φ₀) / 2) sin((φ − φ₀) / 2), so the integrand keeps its digits near φ₀.
+    org.hipparchus.analysis.UnivariateFunction f = l -> {
+      double p = p1 + (l - l1) * (p2 - p1) / (l2 - l1);
+      return 2 * Math.cos(0.5 * (p + ref)) * Math.sin(0.5 * (p - ref));
+    };
+    // A 12-point rule integrates this smooth integrand over at most a few degrees to rounding.
+    double quad = new org.hipparchus.analysis.integration.gauss.GaussIntegratorFactory()
+        .legendreHighPrecision(12, Math.min(l1, l2), Math.max(l1, l2)).integrate(f) * Math.signum(l2 - l1);
+    // Latitudes in radians carry about 1e-16 of rounding, which moves the integral by up to
+    // |Δλ| 1e-16 whatever the formula; beyond that both must agree to 1e-12. (The former closed
+    // form Δλ (cos φ₁ − cos φ₂) / Δφ is off by about 1e-5 Δλ on the nearly horizontal edge.)
+    assertEquals(quad, SphericalArea.edgeIntegral(lon1, lat1, lon2, lat2, ref), 1e-12 * Math.abs(quad) + 1e-15 * Math.abs(l2 - l1));
+  }
+
+  @Test
+  void aSmallCellFarFromTheEquatorKeepsItsDigits() throws Exception {
+    // sin b − sin a = 2 cos((a + b) / 2) sin((b − a) / 2) (trigonometric identity): a 0.001-degree
+    // cell at 60 N from the polygon integral, to 1e-12.
+    double s = 60.0, n = 60.001, w = 10.0, e = 10.001;
+    double a = Math.toRadians(s), b = Math.toRadians(n), r = SphericalArea.EARTH_RADIUS_M;
+    double expected = r * r * Math.toRadians(e - w) * 2 * Math.cos(0.5 * (a + b)) * Math.sin(0.5 * (b - a));
+    Geometry cell = new WKTReader().read("POLYGON((10.0 60.0, 10.001 60.0, 10.001 60.001, 10.0 60.001, 10.0 60.0))");
+    assertEquals(expected, SphericalArea.of(cell), 1e-12 * expected);
+  }
+
+  /**
    * The sphere against GeographicLib's geodesic polygon area on WGS84 (Karney 2013). The cells'
    * parallels are not geodesics, so each parallel edge is densified every 0.001 degree; the chord
    * error is then below 1e-9 relative. Expected ratio: the WGS84 area element over the sphere's is
