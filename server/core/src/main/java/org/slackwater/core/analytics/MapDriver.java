@@ -3,77 +3,61 @@ package org.slackwater.core.analytics;
 import java.util.Arrays;
 import org.slackwater.core.analytics.correlation.AlignedPair;
 import org.slackwater.core.analytics.correlation.Alignment;
+import org.slackwater.core.analytics.correlation.CentredPrefix;
 import org.slackwater.core.analytics.correlation.CorrelationInputException;
 import org.slackwater.core.analytics.correlation.CorrelationSettings;
 import org.slackwater.core.analytics.correlation.DatedSeries;
 
 /**
- * The driver of a correlation map, prepared once for every cell. Every cell series has the same
- * dates (the {@link MapPeriods}), so {@link Alignment#align} would build the same step axis for
- * each of them; this holds that axis (where each period of the cells falls on it) and everything
- * {@link org.slackwater.core.analytics.correlation.LagCorrelator} derives from the driver alone:
- * its first and last value, its values centred on their mean, and the prefix sums and missing
- * counts its gap-free fast path reads. The formulas are LagCorrelator's, term for term, so that
- * {@link MapLagKernel} reproduces its results.
+ * The driver of a correlation map, prepared once for every cell and every lag. Every cell series
+ * has the same dates (the {@link MapPeriods}), so {@link Alignment#align} would build the same step
+ * axis for each of them; this holds that axis (where each period of the cells falls on it) and
+ * what {@link org.slackwater.core.analytics.correlation.LagCorrelator} derives from the driver
+ * alone: its first and last value, its values centred on their mean and their {@link
+ * CentredPrefix} sums (the same class and order LagCorrelator uses), plus the centred values
+ * zero-padded for the all-lags cross product of {@link MapLagKernel}.
  *
  * <p>Fails with a {@link CorrelationInputException} where the driver alone makes every cell fail:
  * {@code STEP_MISMATCH} (driver at another step), {@code EMPTY_SERIES} (no value), {@code
- * LAG_RANGE_TOO_LONG} (the lag reaches beyond the driver's span of values), and Alignment's axis
- * guard. Immutable; read concurrently by all workers.
+ * LAG_RANGE_TOO_LONG} (some |lag| reaches beyond the driver's span of values), and Alignment's
+ * axis guard. Immutable once prepared; read concurrently by all workers.
  */
 final class MapDriver {
-  private final int lag;
+  private final CorrelationSettings settings;
   private final int[] axisIndex;
   private final double[] raw;
   private final double[] centred;
   private final int first;
   private final int last;
-  // Prefix sums over the centred values (NaN counted as 0); index i covers positions [0, i).
-  private final double[] sum;
-  private final double[] squares;
-  private final double[] lagged;
-  private final int[] missing;
+  private final boolean gapFree;
+  private final CentredPrefix prefix = new CentredPrefix();
+  private final int pad;
+  private final double[] padded;
 
-  private MapDriver(int lag, int[] axisIndex, double[] raw, int first, int last) {
-    this.lag = lag;
+  private MapDriver(CorrelationSettings settings, int[] axisIndex, double[] raw, int first, int last) {
+    this.settings = settings;
     this.axisIndex = axisIndex;
     this.raw = raw;
     this.first = first;
     this.last = last;
     int len = raw.length;
     centred = new double[len];
-    double s = 0;
-    int n = 0;
-    for (double v : raw) {
-      if (v == v) {
-        s += v;
-        n++;
-      }
-    }
-    double mean = s / n;
+    CentredPrefix.centre(raw, centred, len);
+    prefix.fill(centred, len);
+    gapFree = prefix.complete(first, last + 1);
+    // Lag L pairs axis position i with i - L: padded[i - L + pad] for every lag, and for up to
+    // three lags beyond the last, so the kernel can run four lags at a time without a remainder.
+    pad = Math.max(0, settings.maxLag() + 3 * settings.lagStep());
+    padded = new double[len + pad + Math.max(0, -settings.minLag())];
     for (int i = 0; i < len; i++) {
-      centred[i] = raw[i] - mean;
-    }
-    sum = new double[len + 1];
-    squares = new double[len + 1];
-    lagged = new double[len + 1];
-    missing = new int[len + 1];
-    for (int i = 0; i < len; i++) {
-      double x = centred[i];
-      boolean absent = Double.isNaN(x);
-      double x0 = absent ? 0 : x;
-      double next = i + 1 < len && !Double.isNaN(centred[i + 1]) ? centred[i + 1] : 0;
-      sum[i + 1] = sum[i] + x0;
-      squares[i + 1] = squares[i] + x0 * x0;
-      lagged[i + 1] = lagged[i] + x0 * next;
-      missing[i + 1] = missing[i] + (absent ? 1 : 0);
+      double v = centred[i];
+      padded[i + pad] = v == v ? v : 0;
     }
   }
 
   /**
    * @param periods the cells' periods; their step is the map's step
    * @param step the map's step
-   * @param settings a single lag
    */
   static MapDriver prepare(MapPeriods periods, TemporalStep step, DatedSeries driver, CorrelationSettings settings) {
     if (driver.step() != step) {
@@ -114,12 +98,14 @@ final class MapDriver {
     int span = last - first + 1;
     int reach = settings.maxAbsLag();
     if (reach >= span) {
+      String lags = settings.lagCount() == 1 ? "lag " + settings.minLag() + " reaches "
+          : "lags " + settings.minLag() + " to " + settings.maxLag() + " reach ";
       throw new CorrelationInputException(CorrelationInputException.Kind.LAG_RANGE_TOO_LONG,
-          "lag range too long for the driver: lag " + settings.minLag() + " reaches " + reach + " " + noun(step)
+          "lag range too long for the driver: " + lags + reach + " " + noun(step)
               + "s, but the driver has values over only " + span + " " + noun(step) + "s (" + pair.dateAt(first)
-              + " to " + pair.dateAt(last) + "); keep |lag| below " + span);
+              + " to " + pair.dateAt(last) + "); keep every |lag| below " + span);
     }
-    return new MapDriver(settings.minLag(), axisIndex, raw, first, last);
+    return new MapDriver(settings, axisIndex, raw, first, last);
   }
 
   private static String noun(TemporalStep step) {
@@ -133,8 +119,8 @@ final class MapDriver {
     };
   }
 
-  int lag() {
-    return lag;
+  CorrelationSettings settings() {
+    return settings;
   }
 
   /** Length of the shared axis. */
@@ -142,22 +128,23 @@ final class MapDriver {
     return raw.length;
   }
 
-  /**
-   * The axis position of the first period if the periods occupy consecutive positions (no gap in
-   * the cube's time axis at this step), else -1.
-   */
-  int contiguousBase() {
-    for (int p = 1; p < axisIndex.length; p++) {
-      if (axisIndex[p] != axisIndex[0] + p) {
-        return -1;
-      }
-    }
-    return axisIndex[0];
-  }
-
   /** Axis position of the cells' period p. */
   int axisIndex(int p) {
     return axisIndex[p];
+  }
+
+  /** Number of the cells' periods. */
+  int periods() {
+    return axisIndex.length;
+  }
+
+  /** Each period's axis position relative to the first period's (a fresh array). */
+  int[] periodRows() {
+    int[] rows = new int[axisIndex.length];
+    for (int p = 0; p < rows.length; p++) {
+      rows[p] = axisIndex[p] - axisIndex[0];
+    }
+    return rows;
   }
 
   int first() {
@@ -168,34 +155,40 @@ final class MapDriver {
     return last;
   }
 
+  /** Whether no value is missing between the first and the last. */
+  boolean gapFree() {
+    return gapFree;
+  }
+
   /** The driver on the axis, NaN where missing; shared, never modify. */
   double[] raw() {
     return raw;
   }
 
-  /** The driver centred on its mean; shared, never modify. */
-  double[] centred() {
-    return centred;
+  /** Centred value at axis position j, 0 where missing or outside the axis. */
+  double centredOrZero(int j) {
+    return padded[j + pad];
   }
 
-  boolean complete(int from, int to) {
-    return missing[to] == missing[from];
+  /** Prefix sums of the centred values. */
+  CentredPrefix prefix() {
+    return prefix;
   }
 
-  double sum(int from, int to) {
-    return sum[to] - sum[from];
+  /**
+   * The centred values with 0 for missing, at {@code padded()[i + padding()]} for axis position i;
+   * readable for every i - L with i on the axis and L from minLag to maxLag + 3 lag steps.
+   * Shared, never modify.
+   */
+  double[] padded() {
+    return padded;
   }
 
-  double squares(int from, int to) {
-    return squares[to] - squares[from];
+  int padding() {
+    return pad;
   }
 
-  /** Sum of x_i x_{i+1} for i in [from, to - 1). */
-  double lagged(int from, int to) {
-    return lagged[to - 1] - lagged[from];
-  }
-
-  /** An axis-length array of NaN, for a worker to fill with one cell after another. */
+  /** An axis-length array of NaN, for laying one cell onto the axis. */
   double[] blankAxis() {
     double[] a = new double[raw.length];
     Arrays.fill(a, Double.NaN);

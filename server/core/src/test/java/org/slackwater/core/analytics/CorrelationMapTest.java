@@ -2,7 +2,6 @@ package org.slackwater.core.analytics;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
-import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -30,11 +29,13 @@ import org.slackwater.core.Workspace;
 import org.slackwater.core.analytics.correlation.Alignment;
 import org.slackwater.core.analytics.correlation.CorrelationInputException;
 import org.slackwater.core.analytics.correlation.CorrelationMethod;
+import org.slackwater.core.analytics.correlation.CorrelationResult;
 import org.slackwater.core.analytics.correlation.CorrelationSettings;
 import org.slackwater.core.analytics.correlation.DatedSeries;
 import org.slackwater.core.analytics.correlation.Deseasonalize;
 import org.slackwater.core.analytics.correlation.LagCorrelator;
 import org.slackwater.core.analytics.correlation.LagRow;
+import org.slackwater.core.analytics.correlation.LagStatistics;
 import org.slackwater.core.analytics.correlation.LaggedCorrelation;
 import org.slackwater.core.analytics.correlation.LaggedPairs;
 import org.slackwater.core.catalog.CubeEntry;
@@ -50,8 +51,9 @@ import org.slackwater.core.store.ChunkLayout;
 /**
  * The correlation map against its definition: for every cell, {@link LaggedCorrelation} on the
  * cell's own series, built here from the values the source delivered (not from the store) through
- * {@link TemporalAggregation} and {@link Deseasonalize}; Hipparchus' correlation of the paired
- * values as a second, independent reference for r.
+ * {@link TemporalAggregation} and {@link Deseasonalize}, at every lag, with {@link
+ * CorrelationResult}'s own choice of the best lag and its Bonferroni test; Hipparchus' correlation
+ * of the paired values at the reported lag as a second, independent reference for r.
  *
  * <p>The field is the invented Wrenmouth estuary's chlorophyll on a 9 x 7 grid, 1100 days from
  * 2014-01-01 with three days absent from the time axis, against the Harle River discharge (an
@@ -274,59 +276,121 @@ class CorrelationMapTest {
         SpatialStatistic.of(SpatialStatistic.Kind.MEAN)));
   }
 
-  /** The row LaggedCorrelation gives, or the invalid row carrying its refusal. */
-  private static LagRow expected(DatedSeries cell, DatedSeries driver, CorrelationSettings settings,
-      Optional<Deseasonalize> deseasonalize) {
+  // ---------------------------------------------------------------------------------------------
+  // The reference: the cell's series through LaggedCorrelation, and the choice among its lags
+
+  /**
+   * Rows are formed from sums computed in a different order than LagCorrelator's (one pass over a
+   * band for every lag, prefix differences, gap corrections), so agreement is to rounding, not to
+   * the bit: 1e-12 relative (our tolerance; double rounding leaves about 1e-15). r, t and the lag-1
+   * autocorrelations can lie arbitrarily close to 0, where a relative bound means nothing, so
+   * they are compared relative to their scale 1 at least. A p-value far in the tail magnifies the
+   * relative error of t by its condition number |t p'(t) / p| (about 2 |ln p| there, since p falls
+   * like exp(-t^2 / 2)): p is compared relative to that.
+   */
+  private static final double TOLERANCE = 1e-12;
+
+  /** LaggedCorrelation's result for the cell, or null where it refuses the cell (message in refusal[0]). */
+  private static CorrelationResult reference(DatedSeries cell, DatedSeries driver, CorrelationSettings settings,
+      Optional<Deseasonalize> deseasonalize, String[] refusal) {
     try {
       DatedSeries target = deseasonalize.isPresent() ? deseasonalize.get().apply(cell) : cell;
-      return LaggedCorrelation.compute(target, driver, settings).rows().get(0);
+      return LaggedCorrelation.compute(target, driver, settings);
     } catch (CorrelationInputException e) {
-      return new LagRow(settings.minLag(), 0, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
-          false, e.getMessage());
+      refusal[0] = e.getMessage();
+      return null;
     }
   }
 
-  /** Field by field; doubles compared exactly (same formulas in the same order give the same bits). */
-  private static void assertSameRow(LagRow expected, LagRow actual, String where) {
+  /**
+   * The row a map must report from a whole result, written out here from the documented rule:
+   * CorrelationResult.best() (the rule of correlate and rank drivers), else the lag with the most
+   * pairs, equal counts to the smaller |lag| and then the positive lag.
+   */
+  private static LagRow reported(CorrelationResult result) {
+    Optional<LagRow> best = result.best();
+    if (best.isPresent()) {
+      return best.get();
+    }
+    LagRow pick = null;
+    for (LagRow row : result.rows()) {
+      if (pick == null || row.n() > pick.n() || (row.n() == pick.n() && (Math.abs(row.lag()) < Math.abs(pick.lag())
+          || (Math.abs(row.lag()) == Math.abs(pick.lag()) && row.lag() > pick.lag())))) {
+        pick = row;
+      }
+    }
+    return pick;
+  }
+
+  private static void assertClose(double expected, double actual, double scale, String what) {
+    assertClose(expected, actual, scale, 1, what);
+  }
+
+  private static void assertClose(double expected, double actual, double scale, double condition, String what) {
+    if (Double.isNaN(expected)) {
+      assertTrue(Double.isNaN(actual), what + ": expected NaN, got " + actual);
+    } else {
+      assertEquals(expected, actual, TOLERANCE * condition * Math.max(Math.abs(expected), scale), what);
+    }
+  }
+
+  /** Field by field, counts and notes exactly, numbers within {@link #TOLERANCE}. */
+  static void assertSameRow(LagRow expected, LagRow actual, String where) {
     assertEquals(expected.lag(), actual.lag(), where + " lag");
     assertEquals(expected.n(), actual.n(), where + " n");
-    assertEquals(expected.r(), actual.r(), 0.0, where + " r");
-    assertEquals(expected.r1Target(), actual.r1Target(), 0.0, where + " r1 target");
-    assertEquals(expected.r1Driver(), actual.r1Driver(), 0.0, where + " r1 driver");
-    assertEquals(expected.nEffective(), actual.nEffective(), 0.0, where + " n_effective");
-    assertEquals(expected.t(), actual.t(), 0.0, where + " t");
-    assertEquals(expected.pValue(), actual.pValue(), 0.0, where + " p");
+    assertClose(expected.r(), actual.r(), 1, where + " r");
+    assertClose(expected.r1Target(), actual.r1Target(), 1, where + " r1 target");
+    assertClose(expected.r1Driver(), actual.r1Driver(), 1, where + " r1 driver");
+    assertClose(expected.nEffective(), actual.nEffective(), 0, where + " n_effective");
+    assertClose(expected.t(), actual.t(), 1, where + " t");
+    double p = expected.pValue();
+    double condition = p > 0 ? Math.max(1, 2 * Math.abs(Math.log(p))) : 1;
+    assertClose(p, actual.pValue(), 0, condition, where + " p");
     assertEquals(expected.significant(), actual.significant(), where + " significant");
     assertEquals(expected.note(), actual.note(), where + " note");
   }
 
   /**
-   * Computes the map and checks every cell against the reference; returns how many rows were
+   * Computes the map and checks every cell against the reference; returns how many entries were
    * valid, so callers can make sure the comparison was not vacuous.
    */
   private int checkEveryCell(Field field, CubeEntry cube, CellWeights weights, int from, int to, TemporalStep step,
       DatedSeries driver, CorrelationSettings settings, Optional<Deseasonalize> deseasonalize) throws Exception {
-    List<LagRow> rows = CorrelationMap.compute(cache, cube, weights, from, to, step, driver, settings, deseasonalize);
-    assertEquals(weights.size(), rows.size(), "one row per weight entry");
+    List<CellCorrelation> entries = CorrelationMap.compute(cache, cube, weights, from, to, step, driver, settings,
+        deseasonalize);
+    assertEquals(weights.size(), entries.size(), "one entry per weight entry");
     int valid = 0;
     for (int i = 0; i < weights.size(); i++) {
       int y = weights.row(i), x = weights.column(i);
       String where = "cell (" + y + ", " + x + ") " + kind(y, x);
       DatedSeries cell = cellSeries(field, cube, y, x, from, to, step);
-      LagRow want = expected(cell, driver, settings, deseasonalize);
-      LagRow got = rows.get(i);
-      // Reference 1: LaggedCorrelation on the cell's own series (the definition of the map).
-      assertSameRow(want, got, where);
-      if (got.valid()) {
+      String[] refusal = new String[1];
+      CorrelationResult result = reference(cell, driver, settings, deseasonalize, refusal);
+      CellCorrelation got = entries.get(i);
+      assertEquals(settings.lagCount(), got.lagsTested(), where + " lags tested");
+      if (result == null) {
+        // LaggedCorrelation refuses the cell: an invalid row at the first lag carrying its message.
+        assertSameRow(new LagRow(settings.minLag(), 0, Double.NaN, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+            Double.NaN, false, refusal[0]), got.row(), where);
+        assertEquals(0, got.validLags(), where);
+        assertFalse(got.significantAfterBonferroni(), where);
+        continue;
+      }
+      // Reference 1: LaggedCorrelation on the cell's own series (the definition of the map) and
+      // CorrelationResult's own best-lag and Bonferroni answers.
+      assertSameRow(reported(result), got.row(), where);
+      assertEquals(result.validLagCount(), got.validLags(), where + " valid lags");
+      assertEquals(result.bestSignificantAfterBonferroni(), got.significantAfterBonferroni(), where + " Bonferroni");
+      if (got.row().valid()) {
         valid++;
-        // Reference 2: Hipparchus on the complete pairs at this lag, as Alignment pairs them.
+        // Reference 2: Hipparchus on the complete pairs at the reported lag, as Alignment pairs them.
         DatedSeries target = deseasonalize.isPresent() ? deseasonalize.get().apply(cell) : cell;
-        LaggedPairs pairs = Alignment.pairsAt(target, driver, settings.minLag());
-        assertEquals(pairs.size(), got.n(), where + " pairs");
+        LaggedPairs pairs = Alignment.pairsAt(target, driver, got.row().lag());
+        assertEquals(pairs.size(), got.row().n(), where + " pairs");
         double r = settings.method() == CorrelationMethod.PEARSON
             ? new PearsonsCorrelation().correlation(pairs.target(), pairs.driver())
             : new SpearmansCorrelation().correlation(pairs.target(), pairs.driver());
-        assertEquals(r, got.r(), 1e-9, where + " r against Hipparchus");
+        assertEquals(r, got.row().r(), 1e-9, where + " r against Hipparchus");
       }
     }
     return valid;
@@ -350,7 +414,7 @@ class CorrelationMapTest {
 
   @ParameterizedTest(name = "lag {0}, driver gap every {1}, correction {2}, steps {3} to {4}")
   @MethodSource("dailyCases")
-  void dailyPearsonMatchesLaggedCorrelationCellByCell(int lag, int gapEvery, boolean correct, int from, int to)
+  void oneLagMatchesLaggedCorrelationCellByCell(int lag, int gapEvery, boolean correct, int from, int to)
       throws Exception {
     Field field = Field.make(false);
     CubeEntry cube = ingest(field);
@@ -361,23 +425,49 @@ class CorrelationMapTest {
     assertTrue(valid >= 40, "most cells are correlated: " + valid);
   }
 
-  static Stream<Arguments> aggregatedCases() {
+  static Stream<Arguments> manyLagCases() {
     return Stream.of(
-        // step, method, deseasonalize (null = none), lag
-        Arguments.of(TemporalStep.WEEK, CorrelationMethod.SPEARMAN, null, 1),
-        Arguments.of(TemporalStep.MONTH, CorrelationMethod.PEARSON, null, 1),
-        Arguments.of(TemporalStep.MONTH, CorrelationMethod.PEARSON, Deseasonalize.anomalies(), 1),
-        Arguments.of(TemporalStep.MONTH, CorrelationMethod.SPEARMAN, Deseasonalize.standardizedAnomalies(), 2),
-        Arguments.of(TemporalStep.DAY, CorrelationMethod.PEARSON, Deseasonalize.anomalies(), 3),
-        Arguments.of(TemporalStep.DAY, CorrelationMethod.PEARSON,
-            Deseasonalize.anomalies().withBaseline(START, START.plusDays(700)), 7),
-        Arguments.of(TemporalStep.DAY, CorrelationMethod.SPEARMAN, Deseasonalize.anomalies().withHalfWindowDays(0), 7));
+        // first lag, last lag, lag step, driver gaps every n days (0 = none: the shared pass; else
+        // the exact path), correction, native steps [from, to)
+        Arguments.of(-15, 15, 1, 0, true, 17, 1013),
+        Arguments.of(0, 30, 3, 0, true, 310, NT),
+        Arguments.of(-40, -10, 5, 0, false, 17, NT),
+        Arguments.of(-5, 9, 2, 37, true, 310, 1013),
+        Arguments.of(1, 64, 1, 0, true, 0, NT));
   }
 
-  @ParameterizedTest(name = "{0} {1} deseasonalized {2} lag {3}")
+  @ParameterizedTest(name = "lags {0} to {1} step {2}, driver gap every {3}, correction {4}, steps {5} to {6}")
+  @MethodSource("manyLagCases")
+  void manyLagsReportEachCellsBestLag(int first, int last, int by, int gapEvery, boolean correct, int from, int to)
+      throws Exception {
+    Field field = Field.make(false);
+    CubeEntry cube = ingest(field);
+    DatedSeries driver = field.driver(-LEAD, day(NT - 1) - 20, gapEvery);
+    CorrelationSettings settings = new CorrelationSettings(CorrelationMethod.PEARSON, first, last, by, 0.05, correct);
+    int valid = checkEveryCell(field, cube, allCells(), from, to, TemporalStep.DAY, driver, settings, Optional.empty());
+    assertTrue(valid >= 40, "most cells are correlated: " + valid);
+  }
+
+  static Stream<Arguments> aggregatedCases() {
+    return Stream.of(
+        // step, method, deseasonalize (null = none), first lag, last lag
+        Arguments.of(TemporalStep.WEEK, CorrelationMethod.SPEARMAN, null, 1, 1),
+        Arguments.of(TemporalStep.WEEK, CorrelationMethod.SPEARMAN, null, -2, 4),
+        Arguments.of(TemporalStep.MONTH, CorrelationMethod.PEARSON, null, 1, 1),
+        Arguments.of(TemporalStep.MONTH, CorrelationMethod.PEARSON, Deseasonalize.anomalies(), 1, 1),
+        Arguments.of(TemporalStep.MONTH, CorrelationMethod.PEARSON, Deseasonalize.anomalies(), 0, 3),
+        Arguments.of(TemporalStep.MONTH, CorrelationMethod.SPEARMAN, Deseasonalize.standardizedAnomalies(), 2, 2),
+        Arguments.of(TemporalStep.DAY, CorrelationMethod.PEARSON, Deseasonalize.anomalies(), 3, 3),
+        Arguments.of(TemporalStep.DAY, CorrelationMethod.PEARSON,
+            Deseasonalize.anomalies().withBaseline(START, START.plusDays(700)), 0, 10),
+        Arguments.of(TemporalStep.DAY, CorrelationMethod.SPEARMAN, Deseasonalize.anomalies().withHalfWindowDays(0), 7, 7),
+        Arguments.of(TemporalStep.DAY, CorrelationMethod.SPEARMAN, null, 2, 8));
+  }
+
+  @ParameterizedTest(name = "{0} {1} deseasonalized {2} lags {3} to {4}")
   @MethodSource("aggregatedCases")
   void aggregatedAndDeseasonalizedMapsMatchCellByCell(TemporalStep step, CorrelationMethod method, Deseasonalize des,
-      int lag) throws Exception {
+      int first, int last) throws Exception {
     Field field = Field.make(true);
     CubeEntry cube = ingest(field);
     // The caller's side: the daily discharge aggregated to the step like any series, then deseasonalized.
@@ -394,7 +484,7 @@ class CorrelationMapTest {
     if (des != null) {
       driver = des.apply(driver);
     }
-    CorrelationSettings settings = CorrelationSettings.of(method, lag, lag, 1, 0.05);
+    CorrelationSettings settings = CorrelationSettings.of(method, first, last, 1, 0.05);
     // Steps [17, 1013) start and end inside a week and a month: partial periods at both ends.
     int valid = checkEveryCell(field, cube, allCells(), 17, 1013, step, driver, settings, deseasonalize);
     assertTrue(valid >= 40, "most cells are correlated: " + valid);
@@ -405,44 +495,55 @@ class CorrelationMapTest {
     Field field = Field.make(false);
     CubeEntry cube = ingest(field);
     DatedSeries driver = field.driver(-LEAD, day(NT - 1), 0);
-    CorrelationSettings settings = CorrelationSettings.of(CorrelationMethod.PEARSON, 7, 7, 1, 0.05);
     // A region of some cells only, in three tiles, the land and special cells among them.
     int[] indices = {0, 1, 2, 5, 9, 12, 16, 23, 30, 40, 61, 62};
     CellWeights weights = cells(indices);
-    for (int[] period : new int[][] {{0, NT}, {600, NT}}) {
-      List<LagRow> rows = CorrelationMap.compute(cache, cube, weights, period[0], period[1], TemporalStep.DAY, driver,
-          settings, Optional.empty());
-      for (int i = 0; i < indices.length; i++) {
-        int y = indices[i] / NX, x = indices[i] % NX;
-        LagRow want = expected(cellSeries(field, cube, y, x, period[0], period[1], TemporalStep.DAY), driver,
-            settings, Optional.empty());
-        LagRow got = rows.get(i);
-        String where = "cell (" + y + ", " + x + ") " + kind(y, x) + " from step " + period[0];
-        assertSameRow(want, got, where);
-        switch (kind(y, x)) {
-          // Land never holds a value (outside the footprint); the short cell has none after step 600.
-          case LAND -> assertAllMissing(got, where);
-          case SHORT -> {
-            if (period[0] == 600) {
-              assertAllMissing(got, where);
-            } else {
-              // Values over 5 days only: lag 7 reaches beyond them (LagCorrelator: |lag| below the span).
-              assertFalse(got.valid(), where);
-              assertEquals(0, got.n(), where);
-              assertTrue(got.note().startsWith("lag range too long"), got.note());
-            }
+    for (CorrelationSettings settings : List.of(CorrelationSettings.of(CorrelationMethod.PEARSON, 7, 7, 1, 0.05),
+        CorrelationSettings.of(CorrelationMethod.PEARSON, 5, 9, 1, 0.05))) {
+      for (int[] period : new int[][] {{0, NT}, {600, NT}}) {
+        List<CellCorrelation> entries = CorrelationMap.compute(cache, cube, weights, period[0], period[1],
+            TemporalStep.DAY, driver, settings, Optional.empty());
+        for (int i = 0; i < indices.length; i++) {
+          int y = indices[i] / NX, x = indices[i] % NX;
+          String where = "cell (" + y + ", " + x + ") " + kind(y, x) + " from step " + period[0] + ", lags "
+              + settings.minLag() + " to " + settings.maxLag();
+          LagRow got = entries.get(i).row();
+          String[] refusal = new String[1];
+          CorrelationResult result = reference(cellSeries(field, cube, y, x, period[0], period[1], TemporalStep.DAY),
+              driver, settings, Optional.empty(), refusal);
+          if (result != null) {
+            assertSameRow(reported(result), got, where);
           }
-          // Constant: r undefined; sparse: 3 values on days 200, 205 and 210, 3 pairs (fewer than MIN_PAIRS).
-          case CONSTANT, SPARSE -> assertFalse(got.valid(), where);
-          default -> assertTrue(got.valid(), where);
+          switch (kind(y, x)) {
+            // Land never holds a value (outside the footprint); the short cell has none after step 600.
+            case LAND -> assertAllMissing(got, where);
+            case SHORT -> {
+              if (period[0] == 600) {
+                assertAllMissing(got, where);
+              } else {
+                // Values over 5 days only: lag 7 reaches beyond them (LagCorrelator: |lag| below the span).
+                assertFalse(got.valid(), where);
+                assertEquals(0, got.n(), where);
+                assertEquals(refusal[0], got.note(), where);
+                assertTrue(got.note().startsWith("lag range too long"), got.note());
+              }
+            }
+            // Constant: r undefined; sparse: 3 values on days 200, 205 and 210, 3 pairs (fewer than MIN_PAIRS).
+            case CONSTANT, SPARSE -> {
+              assertFalse(got.valid(), where);
+              assertEquals(0, entries.get(i).validLags(), where);
+              assertFalse(got.note().isEmpty(), where);
+            }
+            default -> assertTrue(got.valid(), where);
+          }
         }
       }
     }
     // Deseasonalizing an empty cell fails in the baseline, before any correlation: its note says so.
-    List<LagRow> rows = CorrelationMap.compute(cache, cube, cells(new int[] {2}), 0, NT, TemporalStep.DAY, driver,
-        settings, Optional.of(Deseasonalize.anomalies()));
-    assertFalse(rows.get(0).valid());
-    assertTrue(rows.get(0).note().contains("baseline"), rows.get(0).note());
+    List<CellCorrelation> entries = CorrelationMap.compute(cache, cube, cells(new int[] {2}), 0, NT, TemporalStep.DAY,
+        driver, CorrelationSettings.of(CorrelationMethod.PEARSON, 7, 7, 1, 0.05), Optional.of(Deseasonalize.anomalies()));
+    assertFalse(entries.get(0).row().valid());
+    assertTrue(entries.get(0).row().note().contains("baseline"), entries.get(0).row().note());
   }
 
   /** The invalid row of a cell without a single value: n = 0 and LaggedCorrelation's refusal. */
@@ -466,14 +567,16 @@ class CorrelationMapTest {
     double[][] r = new double[lags][];
     boolean[][] significant = new boolean[lags][];
     for (int lag = 0; lag < lags; lag++) {
-      List<LagRow> rows = CorrelationMap.compute(cache, cube, weights, 0, NT, TemporalStep.DAY, driver,
+      List<CellCorrelation> entries = CorrelationMap.compute(cache, cube, weights, 0, NT, TemporalStep.DAY, driver,
           CorrelationSettings.of(CorrelationMethod.PEARSON, lag, lag, 1, 0.05), Optional.empty());
-      r[lag] = rows.stream().mapToDouble(LagRow::r).toArray();
-      significant[lag] = new boolean[rows.size()];
-      for (int i = 0; i < rows.size(); i++) {
-        significant[lag][i] = rows.get(i).significant();
+      r[lag] = entries.stream().mapToDouble(e -> e.row().r()).toArray();
+      significant[lag] = new boolean[entries.size()];
+      for (int i = 0; i < entries.size(); i++) {
+        significant[lag][i] = entries.get(i).row().significant();
       }
     }
+    List<CellCorrelation> all = CorrelationMap.compute(cache, cube, weights, 0, NT, TemporalStep.DAY, driver,
+        CorrelationSettings.of(CorrelationMethod.PEARSON, 0, lags - 1, 1, 0.05), Optional.empty());
     int checked = 0;
     for (int i = 0; i < weights.size(); i++) {
       Kind kind = kind(weights.row(i), weights.column(i));
@@ -494,6 +597,15 @@ class CorrelationMapTest {
           assertTrue(Math.abs(r[lag][i]) < 0.35, where);
         }
       }
+      // All eleven lags in one map: the planted lag wins, with the r the one-lag map gives there,
+      // and survives the Bonferroni correction over the 11 lags (r = 0.9 over ~1000 pairs).
+      LagRow best = all.get(i).row();
+      if (planted >= 0) {
+        assertEquals(planted, best.lag(), "cell " + i);
+        assertTrue(all.get(i).significantAfterBonferroni(), "cell " + i);
+      }
+      assertEquals(11, all.get(i).validLags(), "cell " + i);
+      assertClose(r[best.lag()][i], best.r(), 1, "cell " + i + " r of the best lag");
     }
     assertTrue(checked >= 40, "planted and unrelated cells checked: " + checked);
   }
@@ -505,12 +617,6 @@ class CorrelationMapTest {
     CellWeights weights = allCells();
     DatedSeries driver = field.driver(-LEAD, day(NT - 1), 0);
     CorrelationSettings one = CorrelationSettings.of(CorrelationMethod.PEARSON, 3, 3, 1, 0.05);
-
-    CorrelationInputException many = assertThrows(CorrelationInputException.class, () -> CorrelationMap.compute(cache,
-        cube, weights, 0, NT, TemporalStep.DAY, driver, CorrelationSettings.of(CorrelationMethod.PEARSON, 0, 5, 1, 0.05),
-        Optional.empty()));
-    assertEquals(CorrelationInputException.Kind.BAD_SETTING, many.kind());
-    assertTrue(many.getMessage().contains("single lag"), many.getMessage());
 
     DatedSeries monthly = new DatedSeries(TemporalStep.MONTH, new LocalDate[] {START, START.plusMonths(1)},
         new double[] {1, 2});
@@ -531,6 +637,14 @@ class CorrelationMapTest {
         cube, weights, 0, NT, TemporalStep.DAY, shortDriver, one, Optional.empty()));
     assertEquals(CorrelationInputException.Kind.LAG_RANGE_TOO_LONG, range.kind());
     assertTrue(range.getMessage().contains("2014-04-11 to 2014-04-13"), range.getMessage());
+    // With many lags the largest |lag| counts, and the message names the range.
+    DatedSeries tenDays = field.driver(100, 109, 0);
+    CorrelationInputException lags = assertThrows(CorrelationInputException.class, () -> CorrelationMap.compute(cache,
+        cube, weights, 0, NT, TemporalStep.DAY, tenDays, CorrelationSettings.of(CorrelationMethod.PEARSON, -12, 2, 1,
+            0.05), Optional.empty()));
+    assertEquals(CorrelationInputException.Kind.LAG_RANGE_TOO_LONG, lags.kind());
+    assertTrue(lags.getMessage().contains("lags -12 to 2 reach 12 days") && lags.getMessage().contains("below 10"),
+        lags.getMessage());
 
     CorrelationInputException noSteps = assertThrows(CorrelationInputException.class, () -> CorrelationMap.compute(
         cache, cube, weights, 50, 50, TemporalStep.DAY, driver, one, Optional.empty()));
@@ -544,13 +658,15 @@ class CorrelationMapTest {
   }
 
   /**
-   * The shared-driver kernel alone against LagCorrelator on the same axis arrays, over both of its
-   * paths (gap-free windows and windows with gaps), negative and positive lags and both settings
-   * of the correction. Where the kernel defers (returns null) the reference row must be one it is
-   * not meant to produce: invalid, with a note, or a refusal.
+   * The all-lags kernel alone against LagCorrelator on the same axis arrays, at every lag: cells
+   * without gaps, with scattered, clustered and paired gaps, starting late or ending early, with a
+   * few values only, constant; lags negative and positive, with steps, windows cut by the driver's
+   * ends; both settings of the correction; fused and plain multiply-adds. Every lag's row from the
+   * kernel's sums must equal LagCorrelator's within the tolerance, and the r the kernel ranks lags
+   * by must be that row's r.
    */
   @Test
-  void kernelEqualsLagCorrelatorOnBothPaths() {
+  void kernelEqualsLagCorrelatorAtEveryLag() {
     Random random = new Random(31);
     int n = 400;
     long[] secs = new long[n];
@@ -558,66 +674,110 @@ class CorrelationMapTest {
       secs[t] = START.plusDays(t).toEpochDay() * 86_400L;
     }
     MapPeriods periods = MapPeriods.of(secs, 0, n, TemporalStep.DAY);
-    int fast = 0, deferred = 0, completeWindows = 0;
-    for (int trial = 0; trial < 60; trial++) {
-      boolean targetGaps = trial % 2 == 1, driverGaps = trial % 4 >= 2;
-      int lag = new int[] {-5, 0, 1, 4, 30, 250}[trial % 6];
+    int[][] ranges = {{-5, 5, 1}, {0, 40, 3}, {-30, -20, 2}, {1, 1, 1}, {-60, 60, 7}, {250, 252, 1}, {-3, 33, 1}};
+    int width = 12;
+    int rows = 0, lagsChecked = 0, gappedRows = 0, refusedLanes = 0;
+    for (int trial = 0; trial < 28; trial++) {
+      int[] range = ranges[trial % ranges.length];
       boolean correct = trial % 5 != 0;
-      CorrelationSettings settings = new CorrelationSettings(CorrelationMethod.PEARSON, lag, lag, 1, 0.05, correct);
-      // The driver covers days -20 .. 379, the target 0 .. 399 with, in some trials, a few values only.
-      double[] d = new double[n];
-      LocalDate[] dDates = new LocalDate[n];
+      CorrelationSettings settings = new CorrelationSettings(CorrelationMethod.PEARSON, range[0], range[1], range[2],
+          0.05, correct);
+      // The driver covers days -20 .. 379, or in some trials days 40 .. 330 only.
+      boolean shortDriver = trial % 3 == 2;
+      int d0 = shortDriver ? 40 : -20, dn = shortDriver ? 291 : n;
+      double[] d = new double[dn];
+      LocalDate[] dDates = new LocalDate[dn];
       double phi = random.nextDouble() * 0.9;
-      for (int i = 0; i < n; i++) {
-        dDates[i] = START.plusDays(i - 20);
-        d[i] = (i > 0 ? phi * d[i - 1] : 0) + random.nextGaussian();
+      for (int i = 0; i < dn; i++) {
+        dDates[i] = START.plusDays(d0 + i);
+        d[i] = 5 + (i > 0 ? phi * (d[i - 1] - 5) : 0) + random.nextGaussian();
       }
-      double[] target = new double[n];
-      int keep = trial % 7 == 6 ? 3 : n; // a few trials with only three values
-      for (int i = 0; i < n; i++) {
-        int partner = Math.max(0, Math.min(n - 1, i + 20 - lag)); // the driver value lag days earlier
-        target[i] = i < keep ? 0.5 * d[partner] + random.nextGaussian() : Double.NaN;
-        if (targetGaps && random.nextDouble() < 0.05) {
-          target[i] = Double.NaN;
-        }
-        if (driverGaps && random.nextDouble() < 0.05) {
-          d[i] = Double.NaN;
-        }
-      }
-      DatedSeries driverSeries = new DatedSeries(TemporalStep.DAY, dDates, d);
       MapDriver driver;
       try {
-        driver = MapDriver.prepare(periods, TemporalStep.DAY, driverSeries, settings);
+        driver = MapDriver.prepare(periods, TemporalStep.DAY, new DatedSeries(TemporalStep.DAY, dDates, d), settings);
       } catch (CorrelationInputException e) {
         continue;
       }
-      double[] axis = driver.blankAxis();
-      for (int p = 0; p < n; p++) {
-        axis[driver.axisIndex(p)] = target[p];
+      int start = driver.axisIndex(0);
+      // Both multiply-adds: fused where the processor has it, as the map runs here, and plain.
+      MapLagKernel kernel = new MapLagKernel(driver, 16, n, start, trial % 2 == 0);
+      kernel.begin(width); // fewer lanes than the kernel holds, as for the last band of a tile
+      double[][] lanes = new double[width][n];
+      for (int j = 0; j < width; j++) {
+        for (int p = 0; p < n; p++) {
+          int partner = p - d0 - (range[0] + range[1]) / 2; // the driver value near the middle lag earlier
+          double signal = partner >= 0 && partner < dn ? d[partner] : 5;
+          double v = 3 + 0.6 * signal + random.nextGaussian();
+          lanes[j][p] = switch (j) {
+            case 0, 8 -> v;
+            case 1 -> random.nextDouble() < 0.05 ? Double.NaN : v;
+            case 2 -> random.nextDouble() < 0.4 ? Double.NaN : v;
+            case 3 -> p < 100 ? Double.NaN : v;
+            case 4 -> p > 250 || p % 17 == 5 ? Double.NaN : v;
+            // A few values only; with the short driver, values at both ends that no lag pairs.
+            case 5 -> (shortDriver ? p <= 4 || p >= 395 : p == 10 || p == 11 || p == 300) ? v : Double.NaN;
+            case 6 -> (p / 10) % 4 == 1 ? Double.NaN : v;
+            case 7 -> 2.5;
+            case 9 -> p % 9 == 4 || p % 9 == 5 ? Double.NaN : v;
+            case 10 -> p % 60 == 7 ? v : Double.NaN;
+            default -> p < 330 && p > 40 ? 1e6 + v : Double.NaN; // far from 0: centring matters
+          };
+          kernel.set(p, j, lanes[j][p]);
+        }
       }
-      double[] axisCopy = axis.clone();
-      LagRow reference;
-      try {
-        reference = new LagCorrelator(settings).compute(axisCopy, driver.raw()).rows().get(0);
-      } catch (CorrelationInputException e) {
-        reference = null;
+      kernel.scan(width);
+      boolean[] fast = new boolean[16];
+      int spanD = driver.last() - driver.first() + 1;
+      for (int j = 0; j < width; j++) {
+        // The map's rule: cells whose span the lags outreach go to the reference for its message.
+        fast[j] = kernel.count(j) > 0 && settings.maxAbsLag() < Math.min(kernel.span(j), spanD);
       }
-      LagRow row = MapLagKernel.pearson(axis, driver, settings);
-      if (row == null) {
-        deferred++;
-        assertTrue(reference == null || !reference.valid() || !reference.note().isEmpty(), "trial " + trial);
-      } else {
-        fast++;
-        assertNotNull(reference, "trial " + trial);
-        // Reference: LagCorrelator on the same arrays (the kernel claims its formulas, term for term).
-        assertSameRow(reference, row, "trial " + trial);
-        if (!targetGaps && !driverGaps) {
-          completeWindows++;
+      kernel.prepare(fast);
+      int lagCount = settings.lagCount();
+      double[][] cross = new double[width][lagCount];
+      double[][] rank = new double[width][lagCount];
+      int[][] pairs = new int[width][lagCount];
+      for (double[] c : cross) {
+        Arrays.fill(c, Double.NaN);
+      }
+      kernel.correlate((j, l, r, np, c) -> {
+        cross[j][l] = c;
+        rank[j][l] = r;
+        pairs[j][l] = np;
+      });
+      for (int j = 0; j < width; j++) {
+        if (!fast[j]) {
+          assertTrue(Double.isNaN(cross[j][0]), "trial " + trial + " lane " + j + " is not reported");
+          continue;
+        }
+        double[] axis = driver.blankAxis();
+        for (int p = 0; p < n; p++) {
+          axis[start + p] = lanes[j][p];
+        }
+        CorrelationResult reference;
+        try {
+          reference = new LagCorrelator(settings).compute(axis, driver.raw());
+        } catch (CorrelationInputException e) {
+          // No pair at any lag: the kernel must see none either.
+          assertEquals(CorrelationInputException.Kind.NO_OVERLAP, e.kind(), "trial " + trial + " lane " + j);
+          assertEquals(0, Arrays.stream(pairs[j]).sum(), "trial " + trial + " lane " + j);
+          refusedLanes++;
+          continue;
+        }
+        for (int l = 0; l < lagCount; l++) {
+          String where = "trial " + trial + " lane " + j + " lag " + settings.lags()[l];
+          LagRow row = LagStatistics.row(settings.lags()[l], kernel.sums(j, l, cross[j][l]), settings);
+          assertSameRow(reference.rows().get(l), row, where);
+          assertEquals(row.n(), pairs[j][l], where + " pairs");
+          assertEquals(row.r(), rank[j][l], 0.0, where + " ranking r"); // the same arithmetic on the same sums
+          lagsChecked++;
+          rows += row.valid() ? 1 : 0;
+          gappedRows += row.valid() && kernel.count(j) < kernel.span(j) ? 1 : 0;
         }
       }
     }
-    assertTrue(fast >= 30 && deferred >= 5 && completeWindows >= 8,
-        "fast " + fast + ", deferred " + deferred + ", gap-free " + completeWindows);
+    assertTrue(lagsChecked > 3000 && rows > 2000 && gappedRows > 1000 && refusedLanes > 0,
+        "lags " + lagsChecked + ", valid " + rows + ", valid with gaps " + gappedRows + ", no overlap " + refusedLanes);
   }
 
   /** The native step to period cut, against TemporalAggregation's own cut on the same axis. */
@@ -642,5 +802,24 @@ class CorrelationMapTest {
         assertEquals(reference.stepsExpected()[p], periods.endStep(p) - periods.firstStep(p), step + " period " + p);
       }
     }
+  }
+
+  /** The documented memory bound of a worker's kernel, for axes from a year to centuries of days. */
+  @Test
+  void aWorkersKernelStaysWithinItsBudget() {
+    for (int rows : new int[] {365, 7305, 36_525, 200_000}) {
+      for (int lags : new int[] {1, 31, 400}) {
+        int width = CorrelationMap.width(rows, lags);
+        String where = rows + " rows, " + lags + " lags: width " + width;
+        assertTrue(width >= 4 && width <= CorrelationMap.MAX_WIDTH && width % 4 == 0, where);
+        // Within BLOCK_VALUES, unless even 4 cells exceed it (then 4 cells, the documented fallback).
+        assertTrue(MapLagKernel.footprint(width, rows, lags) <= CorrelationMap.BLOCK_VALUES || width == 4, where);
+        if (width < CorrelationMap.MAX_WIDTH) {
+          assertTrue(MapLagKernel.footprint(width + 4, rows, lags) > CorrelationMap.BLOCK_VALUES, where + " is the widest");
+        }
+      }
+    }
+    // 20 years of days and 31 lags, the benchmark's case: the widest band.
+    assertEquals(CorrelationMap.MAX_WIDTH, CorrelationMap.width(7305, 31));
   }
 }

@@ -52,13 +52,22 @@ public record CorrelationResult(CorrelationSettings settings, List<LagRow> rows)
   }
 
   private static boolean better(LagRow a, LagRow b) {
-    double ra = Math.abs(a.r());
-    double rb = Math.abs(b.r());
-    if (ra != rb) {
-      return ra > rb;
+    return better(a.r(), a.lag(), b.r(), b.lag());
+  }
+
+  /**
+   * The best-lag order of the class comment for two valid correlations: whether r {@code ra} at
+   * lag {@code la} beats r {@code rb} at lag {@code lb}. Public so that callers ranking lags from
+   * sums (the correlation map) pick the same lag without building rows.
+   */
+  public static boolean better(double ra, int la, double rb, int lb) {
+    double absA = Math.abs(ra);
+    double absB = Math.abs(rb);
+    if (absA != absB) {
+      return absA > absB;
     }
-    int la = Math.abs(a.lag());
-    int lb = Math.abs(b.lag());
-    return la != lb ? la < lb : a.lag() > b.lag();
+    int ka = Math.abs(la);
+    int kb = Math.abs(lb);
+    return ka != kb ? ka < kb : la > lb;
   }
 }

@@ -14,7 +14,8 @@ import java.util.function.IntFunction;
  * <p><b>Per lag.</b> The complete pairs (both values present) are the sample; fewer than {@value
  * #MIN_PAIRS} give a NaN row. r is Pearson's product moment, or for Spearman Pearson's r of the
  * ranks (ties averaged) taken over that lag's pairs only, as a rank correlation of those pairs
- * would be computed on its own.
+ * would be computed on its own. Each lag's sums ({@link PairSums}) become its row through {@link
+ * LagStatistics}, the implementation the correlation map shares.
  *
  * <p><b>Lag-1 autocorrelation of a paired sample</b> (for N_eff). Over the N used positions, in
  * date order, with x̄ the sample mean: r1 = ((N - 1) / M) Σ (x_i - x̄)(x_{i+1} - x̄) / Σ (x_i - x̄)²,
@@ -46,9 +47,6 @@ public final class LagCorrelator {
   public static final int MIN_PAIRS = 4;
   /** Fewest lag-1 pairs for estimating an autocorrelation. */
   public static final int MIN_ADJACENT_PAIRS = 3;
-  /** Relative size below which a centred sum of squares counts as zero (a constant sample). */
-  private static final double CONSTANT_TOLERANCE = 1e-12;
-
   private final CorrelationSettings settings;
   private final int[] lags;
 
@@ -57,17 +55,9 @@ public final class LagCorrelator {
   private int[] targetOrder = new int[0];
   private int[] driverOrder = new int[0];
   private int[] included = new int[0];
-  // Prefix sums over the centred values (NaN counted as 0) and prefix counts of NaN, for the
-  // gap-free fast path: index i holds the sum over positions [0, i).
-  private final Prefix targetPrefix = new Prefix();
-  private final Prefix driverPrefix = new Prefix();
-
-  // Results of the last accumulate(), kept in fields so the per-lag loop allocates nothing.
-  private int accN;
-  private double accR;
-  private double accR1Target;
-  private double accR1Driver;
-  private String accProblem;
+  // Prefix sums over the centred values, for the gap-free fast path.
+  private final CentredPrefix targetPrefix = new CentredPrefix();
+  private final CentredPrefix driverPrefix = new CentredPrefix();
 
   public LagCorrelator(CorrelationSettings settings) {
     this.settings = Objects.requireNonNull(settings, "settings");
@@ -114,8 +104,8 @@ public final class LagCorrelator {
       nD = sortedValid(driver, driverOrder);
     } else {
       // Centring once on the overall means keeps the one-pass sums well conditioned.
-      centre(target, targetWork);
-      centre(driver, driverWork);
+      CentredPrefix.centre(target, targetWork, len);
+      CentredPrefix.centre(driver, driverWork, len);
       targetPrefix.fill(targetWork, len);
       driverPrefix.fill(driverWork, len);
     }
@@ -126,21 +116,19 @@ public final class LagCorrelator {
       // Only where both series have values can there be pairs: i in the target's span and i - lag in the driver's.
       int lo = (int) Math.max(firstT, (long) firstD + lag);
       int hi = (int) Math.min(lastT + 1L, lastD + 1L + lag);
+      PairSums sums;
       if (lo >= hi) {
-        accN = 0;
-        accProblem = null;
+        sums = PairSums.NONE;
       } else if (spearman) {
         rank(target, driver, nT, nD, lo, hi, lag);
-        accumulate(targetWork, driverWork, lo, hi, 0);
+        sums = accumulate(targetWork, driverWork, lo, hi, 0);
+      } else if (targetPrefix.complete(lo, hi) && driverPrefix.complete(lo - lag, hi - lag)) {
+        sums = completeWindow(lo, hi, lag);
       } else {
-        if (targetPrefix.complete(lo, hi) && driverPrefix.complete(lo - lag, hi - lag)) {
-          completeWindow(lo, hi, lag);
-        } else {
-          accumulate(targetWork, driverWork, lo, hi, lag);
-        }
+        sums = accumulate(targetWork, driverWork, lo, hi, lag);
       }
-      totalPairs += accN;
-      rows.add(row(lag));
+      totalPairs += sums.n();
+      rows.add(LagStatistics.row(lag, sums, settings));
     }
     if (totalPairs == 0) {
       throw new CorrelationInputException(CorrelationInputException.Kind.NO_OVERLAP,
@@ -166,36 +154,10 @@ public final class LagCorrelator {
     }
   }
 
-  private LagRow row(int lag) {
-    int n = accN;
-    if (n < MIN_PAIRS) {
-      return LagRow.invalid(lag, n, "only " + n + " pair" + (n == 1 ? "" : "s")
-          + " with values in both series at this lag; at least " + MIN_PAIRS + " are needed");
-    }
-    if (accProblem != null) {
-      return LagRow.invalid(lag, n, accProblem);
-    }
-    double r = accR;
-    String note = "";
-    double nEff = n;
-    if (settings.correctForAutocorrelation()) {
-      if (Double.isNaN(accR1Target) || Double.isNaN(accR1Driver)) {
-        note = "lag-1 autocorrelation not estimable (fewer than " + MIN_ADJACENT_PAIRS
-            + " pairs of consecutive steps); p-value not corrected for autocorrelation";
-      } else {
-        nEff = Significance.effectiveSampleSize(n, accR1Target, accR1Driver);
-      }
-    }
-    double t = Significance.tStatistic(r, nEff);
-    double p = Significance.twoSidedPValue(t, nEff - 2);
-    return new LagRow(lag, n, r, accR1Target, accR1Driver, nEff, t, p, p <= settings.alpha(), note);
-  }
-
   /**
-   * Running sums over positions i in [lo, hi) where a[i] and b[i - k] are both present; sets
-   * accN, accR, accR1Target, accR1Driver, accProblem.
+   * Running sums over positions i in [lo, hi) where a[i] and b[i - k] are both present.
    */
-  private void accumulate(double[] a, double[] b, int lo, int hi, int k) {
+  private static PairSums accumulate(double[] a, double[] b, int lo, int hi, int k) {
     int n = 0;
     int m = 0;
     double sa = 0, sb = 0, saa = 0, sbb = 0, sab = 0;
@@ -228,20 +190,20 @@ public final class LagCorrelator {
         previous = false;
       }
     }
-    finish(n, m, sa, sb, saa, sbb, sab, adjA0, adjA1, adjAA, adjB0, adjB1, adjBB);
+    return new PairSums(n, m, sa, sb, saa, sbb, sab, adjA0, adjA1, adjAA, adjB0, adjB1, adjBB);
   }
 
   /**
    * The same sums as {@link #accumulate} when no value is missing in either window: everything but
    * the cross product comes from prefix sums in O(1), leaving one dot product per lag.
    */
-  private void completeWindow(int lo, int hi, int k) {
-    Prefix t = targetPrefix;
-    Prefix d = driverPrefix;
+  private PairSums completeWindow(int lo, int hi, int k) {
+    CentredPrefix t = targetPrefix;
+    CentredPrefix d = driverPrefix;
     int n = hi - lo;
     int dlo = lo - k;
     int dhi = hi - k;
-    finish(n, n - 1, t.sum(lo, hi), d.sum(dlo, dhi), t.squares(lo, hi), d.squares(dlo, dhi),
+    return new PairSums(n, n - 1, t.sum(lo, hi), d.sum(dlo, dhi), t.squares(lo, hi), d.squares(dlo, dhi),
         dot(targetWork, lo, driverWork, dlo, n),
         t.sum(lo, hi - 1), t.sum(lo + 1, hi), t.lagged(lo, hi),
         d.sum(dlo, dhi - 1), d.sum(dlo + 1, dhi), d.lagged(dlo, dhi));
@@ -261,45 +223,6 @@ public final class LagCorrelator {
       s0 += a[aFrom + q] * b[bFrom + q];
     }
     return (s0 + s1) + (s2 + s3);
-  }
-
-  /**
-   * r and both lag-1 autocorrelations from raw sums over the n used positions (values already
-   * centred on the overall means) and the m lag-1 pairs among them.
-   */
-  private void finish(int n, int m, double sa, double sb, double saa, double sbb, double sab, double adjA0,
-      double adjA1, double adjAA, double adjB0, double adjB1, double adjBB) {
-    accN = n;
-    accProblem = null;
-    accR = Double.NaN;
-    accR1Target = Double.NaN;
-    accR1Driver = Double.NaN;
-    if (n < MIN_PAIRS) {
-      return;
-    }
-    double ma = sa / n;
-    double mb = sb / n;
-    double caa = saa - n * ma * ma;
-    double cbb = sbb - n * mb * mb;
-    double cab = sab - n * ma * mb;
-    boolean constantA = caa <= CONSTANT_TOLERANCE * saa;
-    boolean constantB = cbb <= CONSTANT_TOLERANCE * sbb;
-    if (constantA || constantB) {
-      accProblem = "the " + (constantA ? "target" : "driver")
-          + " is constant over the pairs at this lag, so the correlation is undefined";
-      return;
-    }
-    accR = Math.max(-1, Math.min(1, cab / Math.sqrt(caa * cbb)));
-    accR1Target = lagOne(n, m, adjAA - ma * (adjA0 + adjA1) + m * ma * ma, caa);
-    accR1Driver = lagOne(n, m, adjBB - mb * (adjB0 + adjB1) + m * mb * mb, cbb);
-  }
-
-  private static double lagOne(int n, int m, double lagged, double centredSquares) {
-    if (m < MIN_ADJACENT_PAIRS) {
-      return Double.NaN;
-    }
-    double r1 = (double) (n - 1) / m * lagged / centredSquares;
-    return Math.max(-1, Math.min(1, r1));
   }
 
   /**
@@ -358,21 +281,6 @@ public final class LagCorrelator {
     return n;
   }
 
-  private static void centre(double[] values, double[] out) {
-    double sum = 0;
-    int n = 0;
-    for (double v : values) {
-      if (v == v) {
-        sum += v;
-        n++;
-      }
-    }
-    double mean = sum / n;
-    for (int i = 0; i < values.length; i++) {
-      out[i] = values[i] - mean; // NaN stays NaN
-    }
-  }
-
   private void ensureCapacity(int len) {
     if (targetWork.length < len) {
       targetWork = new double[len];
@@ -380,50 +288,6 @@ public final class LagCorrelator {
       targetOrder = new int[len];
       driverOrder = new int[len];
       included = new int[len];
-    }
-  }
-
-  /** Prefix sums of one centred series; arrays grow on demand and are reused. */
-  private static final class Prefix {
-    private double[] sum = new double[1];
-    private double[] squares = new double[1];
-    private double[] lagged = new double[1];
-    private int[] missing = new int[1];
-
-    void fill(double[] v, int len) {
-      if (sum.length < len + 1) {
-        sum = new double[len + 1];
-        squares = new double[len + 1];
-        lagged = new double[len + 1];
-        missing = new int[len + 1];
-      }
-      for (int i = 0; i < len; i++) {
-        double x = v[i];
-        boolean absent = Double.isNaN(x);
-        double x0 = absent ? 0 : x;
-        double next = i + 1 < len && !Double.isNaN(v[i + 1]) ? v[i + 1] : 0;
-        sum[i + 1] = sum[i] + x0;
-        squares[i + 1] = squares[i] + x0 * x0;
-        lagged[i + 1] = lagged[i] + x0 * next;
-        missing[i + 1] = missing[i] + (absent ? 1 : 0);
-      }
-    }
-
-    boolean complete(int from, int to) {
-      return missing[to] == missing[from];
-    }
-
-    double sum(int from, int to) {
-      return sum[to] - sum[from];
-    }
-
-    double squares(int from, int to) {
-      return squares[to] - squares[from];
-    }
-
-    /** Sum of x_i x_{i+1} for i in [from, to - 1), i.e. the lag-1 pairs inside [from, to). */
-    double lagged(int from, int to) {
-      return lagged[to - 1] - lagged[from];
     }
   }
 
