@@ -137,7 +137,7 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
       }
       String name = decode(rest);
       if (m.equals(HttpMethod.GET)) {
-        return endpoints.watch(name, param(uri, "format"), accept);
+        return endpoints.watch(name);
       }
       if (m.equals(HttpMethod.DELETE)) {
         return admin(req).orElseGet(() -> endpoints.deleteWatch(name));

@@ -277,7 +277,7 @@ final class Endpoints {
   }
 
   /** One stored watch: its text, version, destinations (secrets hidden) and recorded transitions. */
-  Reply watch(String name, String formatParam, String accept) {
+  Reply watch(String name) {
     Optional<StoredWatch> w = watchService.watch(name);
     if (w.isEmpty()) {
       return noSuchWatch(name);
@@ -412,7 +412,7 @@ final class Endpoints {
     } catch (org.slackwater.alerts.ChannelException e) {
       return Problem.of(HttpResponseStatus.BAD_REQUEST, "Bad alert destinations", e.getMessage());
     }
-    return watch(w.get().name(), null, null);
+    return watch(w.get().name());
   }
 
   private Reply formatted(List<ResultTable> tables, String formatParam, String accept, PlotSize size) {

@@ -123,8 +123,8 @@ final class WatchService implements AutoCloseable {
     Optional<byte[]> png = plot(run);
     boolean any = false;
     for (var d : run.transitions()) {
-      String level = d.state() == WatchState.CLEARED ? "none" : d.levelName();
-      String key = WatchLedger.key(run.watch(), w.version(), d.state(), level, d.day());
+      String level = WatchLedger.level(d);
+      String key = WatchLedger.key(run.watch(), w.version(), d);
       Map<String, String> values = new LinkedHashMap<>();
       d.values().forEach((k, v) -> values.put(k, v == null || v.isNaN() ? "no data" : Double.toString(v)));
       String condition = d.state() == WatchState.CLEARED ? "no rule holds any more"

@@ -77,6 +77,16 @@ public final class WatchLedger implements AutoCloseable {
     }
   }
 
+  /** The key of a run's raised or cleared day (also the alert's idempotency key). */
+  public static String key(String watch, int version, WatchDay d) {
+    return key(watch, version, d.state(), level(d), d.day());
+  }
+
+  /** The level a transition is recorded with: a cleared day has none. */
+  public static String level(WatchDay d) {
+    return d.state() == WatchState.CLEARED ? "none" : d.levelName();
+  }
+
   /**
    * Records the run's raised and cleared days that are not recorded yet, in one transaction.
    *
@@ -89,8 +99,8 @@ public final class WatchLedger implements AutoCloseable {
       try (PreparedStatement ins = db.prepareStatement("INSERT OR IGNORE INTO watch_transition"
           + " (key, watch, version, day, state, level, values_json, recorded_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)")) {
         for (WatchDay d : run.transitions()) {
-          String level = d.state() == WatchState.CLEARED ? "none" : d.levelName();
-          String key = key(run.watch(), version, d.state(), level, d.day());
+          String level = level(d);
+          String key = key(run.watch(), version, d);
           ins.setString(1, key);
           ins.setString(2, run.watch());
           ins.setInt(3, version);
