@@ -64,7 +64,7 @@ import org.slackwater.core.store.ChunkLayout;
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
 @Warmup(iterations = 1)
 @Measurement(iterations = 3)
-@Fork(value = 1, jvmArgsAppend = {"-Xmx14g", "--add-opens=java.base/java.nio=ALL-UNNAMED", "--add-opens=java.base/sun.nio.ch=ALL-UNNAMED", "--add-opens=java.base/java.lang=ALL-UNNAMED", "--add-opens=java.base/java.util=ALL-UNNAMED", "--add-opens=java.base/java.lang.invoke=ALL-UNNAMED"})
+@Fork(value = 1, jvmArgsAppend = {"-Xmx14g", "--add-modules=jdk.incubator.vector", "--add-opens=java.base/java.nio=ALL-UNNAMED", "--add-opens=java.base/sun.nio.ch=ALL-UNNAMED", "--add-opens=java.base/java.lang=ALL-UNNAMED", "--add-opens=java.base/java.util=ALL-UNNAMED", "--add-opens=java.base/java.lang.invoke=ALL-UNNAMED"})
 public class CorrelationMapBenchmark {
   static final int NY = 250, NX = 250;
   static final int FIRST_LAG = -15, LAST_LAG = 15;
@@ -140,9 +140,9 @@ public class CorrelationMapBenchmark {
       long baseline = Math.min(baselineBefore, bestOf(2));
       long[] sorted = mapNanos.stream().mapToLong(Long::longValue).sorted().toArray();
       long median = sorted[sorted.length / 2];
-      System.out.printf("%ncorrelation map, %d lags: median %.3f s over %d calls; flat dot-product baseline %.3f s;"
-          + " ratio map / baseline %.2f%n", lags31.lagCount(), median / 1e9, sorted.length, baseline / 1e9,
-          (double) median / baseline);
+      System.out.printf("%ncorrelation map, %d lags, %s arithmetic: median %.3f s over %d calls;"
+          + " flat dot-product baseline %.3f s; ratio map / baseline %.2f%n", lags31.lagCount(),
+          CorrelationMap.arithmetic(), median / 1e9, sorted.length, baseline / 1e9, (double) median / baseline);
     }
     ws.close();
     try (Stream<Path> w = Files.walk(dir)) {

@@ -86,6 +86,14 @@ public final class CorrelationMap {
   private CorrelationMap() {}
 
   /**
+   * How this JVM forms the maps' cross products: VECTOR (started with {@code
+   * --add-modules=jdk.incubator.vector}), FUSED or PLAIN; for logs and benchmarks.
+   */
+  public static String arithmetic() {
+    return MapLagKernel.Arithmetic.BEST.name();
+  }
+
+  /**
    * Per cell of {@code weights} on {@code cube}: the cell's own series at {@code step} over native
    * steps {@code [from, to)}, correlated at every lag of {@code settings} with {@code driver}
    * (already aggregated at the same step, deseasonalized by the caller if wanted; the cell series

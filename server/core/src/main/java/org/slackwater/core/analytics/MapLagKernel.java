@@ -50,7 +50,33 @@ final class MapLagKernel {
    */
   static final boolean FUSED = fusedMultiplyAdd();
 
-  private final boolean fused;
+  /** How the cross products are formed; every choice gives the same sums up to rounding. */
+  enum Arithmetic {
+    /** Multiply, then add: two roundings per step. */
+    PLAIN,
+    /** {@link Math#fma}: one rounding per step. */
+    FUSED,
+    /** {@link VectorCross}: FUSED's sums bit for bit, four lanes per instruction. */
+    VECTOR;
+
+    /**
+     * The fastest this JVM runs: VECTOR when started with {@code --add-modules
+     * jdk.incubator.vector} on a processor with 256-bit vectors and fused multiply-adds, else
+     * FUSED where the processor fuses, else PLAIN.
+     */
+    static final Arithmetic BEST = VectorCross.usable() ? VECTOR : MapLagKernel.FUSED ? FUSED : PLAIN;
+
+    /** Whether this JVM can run it (VECTOR needs the module, FUSED the instruction). */
+    boolean available() {
+      return switch (this) {
+        case PLAIN -> true;
+        case FUSED -> MapLagKernel.FUSED;
+        case VECTOR -> BEST == VECTOR;
+      };
+    }
+  }
+
+  private final Arithmetic arithmetic;
   private final MapDriver driver;
   private final CorrelationSettings settings;
   private final int[] lags;
@@ -96,12 +122,15 @@ final class MapLagKernel {
    * @param start axis position of the first period
    */
   MapLagKernel(MapDriver driver, int width, int rows, int start) {
-    this(driver, width, rows, start, FUSED);
+    this(driver, width, rows, start, Arithmetic.BEST);
   }
 
-  /** With the multiply-add chosen: fused ({@link Math#fma}) or not, for testing both. */
-  MapLagKernel(MapDriver driver, int width, int rows, int start, boolean fused) {
-    this.fused = fused;
+  /** With the arithmetic chosen, for testing each; it must be {@link Arithmetic#available}. */
+  MapLagKernel(MapDriver driver, int width, int rows, int start, Arithmetic arithmetic) {
+    if (!arithmetic.available()) {
+      throw new IllegalArgumentException(arithmetic + " arithmetic is not available in this JVM");
+    }
+    this.arithmetic = arithmetic;
     if (width <= 0 || width % 4 != 0) {
       throw new IllegalArgumentException("width must be a positive multiple of 4: " + width);
     }
@@ -402,30 +431,17 @@ final class MapLagKernel {
         if (g0 == 0) {
           centre(a0, a1);
         }
-        for (int j = 0; j < w; j += 4) {
-          if (!(fast[j] || fast[j + 1] || fast[j + 2] || fast[j + 3])) {
-            continue;
-          }
-          for (int q = 0; q < inGroup; ) {
-            int lag = settings.minLag() + (g0 + q) * step;
-            int off = j * LAG_GROUP + q;
-            if (inGroup - q >= 3) {
-              // Four lags; where only three remain the fourth reads the driver's padding, unused.
-              if (fused) {
-                fused4x4(x, w, j, a0, a1, d, start - lag + pad, step, cross, off);
-              } else {
-                cross4x4(x, w, j, a0, a1, d, start - lag + pad, step, cross, off);
-              }
-              q += 4;
-            } else {
-              // One or two lags left (a single-lag map): one at a time rather than four.
-              if (fused) {
-                fused4x1(x, w, j, a0, a1, d, start - lag + pad, cross, off);
-              } else {
-                cross4x1(x, w, j, a0, a1, d, start - lag + pad, cross, off);
-              }
-              q++;
+        for (int j = 0; j < w; ) {
+          boolean here = fast[j] || fast[j + 1] || fast[j + 2] || fast[j + 3];
+          boolean next = j + 8 <= w && (fast[j + 4] || fast[j + 5] || fast[j + 6] || fast[j + 7]);
+          if (here && next && arithmetic == Arithmetic.VECTOR) {
+            groupCross(j, 8, inGroup, g0, step, a0, a1, d, pad);
+            j += 8;
+          } else {
+            if (here) {
+              groupCross(j, 4, inGroup, g0, step, a0, a1, d, pad);
             }
+            j += 4;
           }
         }
       }
@@ -439,6 +455,42 @@ final class MapLagKernel {
           double r = r(j, l, c);
           sink.accept(j, l, r, lastPairs, c);
         }
+      }
+    }
+  }
+
+  /** The cross products of lanes [j, j + lanes) (4, or 8 with VECTOR) for the group's lags over rows [a0, a1). */
+  private void groupCross(int j, int lanes, int inGroup, int g0, int step, int a0, int a1, double[] d, int pad) {
+    int w = stride;
+    for (int q = 0; q < inGroup; ) {
+      int lag = settings.minLag() + (g0 + q) * step;
+      int off = j * LAG_GROUP + q;
+      int j0 = start - lag + pad;
+      if (inGroup - q >= 3) {
+        // Four lags; where only three remain the fourth reads the driver's padding, unused.
+        switch (arithmetic) {
+          case VECTOR -> {
+            if (lanes == 8) {
+              VectorCross.cross8x4(x, w, j, a0, a1, d, j0, step, cross, off);
+            } else {
+              VectorCross.cross4x4(x, w, j, a0, a1, d, j0, step, cross, off);
+            }
+          }
+          case FUSED -> fused4x4(x, w, j, a0, a1, d, j0, step, cross, off);
+          case PLAIN -> cross4x4(x, w, j, a0, a1, d, j0, step, cross, off);
+        }
+        q += 4;
+      } else {
+        // One or two lags left (a single-lag map): one at a time rather than four.
+        for (int h = 0; h < lanes; h += 4) {
+          int o = off + h * LAG_GROUP;
+          switch (arithmetic) {
+            case VECTOR -> VectorCross.cross4x1(x, w, j + h, a0, a1, d, j0, cross, o);
+            case FUSED -> fused4x1(x, w, j + h, a0, a1, d, j0, cross, o);
+            case PLAIN -> cross4x1(x, w, j + h, a0, a1, d, j0, cross, o);
+          }
+        }
+        q++;
       }
     }
   }

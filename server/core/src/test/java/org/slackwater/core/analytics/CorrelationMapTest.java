@@ -661,10 +661,14 @@ class CorrelationMapTest {
    * The all-lags kernel alone against LagCorrelator on the same axis arrays, at every lag: cells
    * without gaps, with scattered, clustered and paired gaps, starting late or ending early, with a
    * few values only, constant; lags negative and positive, with steps, windows cut by the driver's
-   * ends; both settings of the correction; fused and plain multiply-adds. Every lag's row from the
+   * ends; both settings of the correction; vector, fused and plain multiply-adds. Every lag's row from the
    * kernel's sums must equal LagCorrelator's within the tolerance, and the r the kernel ranks lags
    * by must be that row's r.
    */
+  /** The arithmetics this JVM runs, each tried by the kernel tests. */
+  private static final List<MapLagKernel.Arithmetic> ARITHMETICS = Arrays.stream(MapLagKernel.Arithmetic.values())
+      .filter(MapLagKernel.Arithmetic::available).toList();
+
   @Test
   void kernelEqualsLagCorrelatorAtEveryLag() {
     Random random = new Random(31);
@@ -699,8 +703,9 @@ class CorrelationMapTest {
         continue;
       }
       int start = driver.axisIndex(0);
-      // Both multiply-adds: fused where the processor has it, as the map runs here, and plain.
-      MapLagKernel kernel = new MapLagKernel(driver, 16, n, start, trial % 2 == 0);
+      // Every arithmetic this JVM has: vector and fused as the map runs here, and plain.
+      MapLagKernel.Arithmetic arithmetic = ARITHMETICS.get(trial % ARITHMETICS.size());
+      MapLagKernel kernel = new MapLagKernel(driver, 16, n, start, arithmetic);
       kernel.begin(width); // fewer lanes than the kernel holds, as for the last band of a tile
       double[][] lanes = new double[width][n];
       for (int j = 0; j < width; j++) {
@@ -778,6 +783,80 @@ class CorrelationMapTest {
     }
     assertTrue(lagsChecked > 3000 && rows > 2000 && gappedRows > 1000 && refusedLanes > 0,
         "lags " + lagsChecked + ", valid " + rows + ", valid with gaps " + gappedRows + ", no overlap " + refusedLanes);
+  }
+
+  /**
+   * The vector loops form each lane's sum as the fused scalar loop does (one fused multiply-add per
+   * row, in row order), so their cross products must equal it bit for bit: bands of 16 lanes (8-lane
+   * blocks) and 13 (a 4-lane tail and padding lanes), lag groups of 4, 3 and 1 lags (37 lags run as
+   * 32 + 5), and a single lag. The build runs tests with {@code --add-modules=jdk.incubator.vector}
+   * (parent pom), so VECTOR must be there; a JVM without it runs FUSED instead.
+   */
+  @Test
+  void vectorCrossProductsEqualFusedBitForBit() {
+    assertTrue(MapLagKernel.Arithmetic.VECTOR.available(),
+        "tests run with --add-modules=jdk.incubator.vector on a processor with 256-bit vectors and FMA");
+    Random random = new Random(7);
+    int n = 700;
+    long[] secs = new long[n];
+    for (int t = 0; t < n; t++) {
+      secs[t] = START.plusDays(t).toEpochDay() * 86_400L;
+    }
+    MapPeriods periods = MapPeriods.of(secs, 0, n, TemporalStep.DAY);
+    LocalDate[] dDates = new LocalDate[n];
+    double[] d = new double[n];
+    for (int i = 0; i < n; i++) {
+      dDates[i] = START.plusDays(i);
+      d[i] = 2 + random.nextGaussian();
+    }
+    int compared = 0;
+    for (int[] range : new int[][] {{-3, 33, 1}, {0, 60, 2}, {5, 5, 1}, {-10, -8, 1}}) {
+      CorrelationSettings settings = new CorrelationSettings(CorrelationMethod.PEARSON, range[0], range[1], range[2],
+          0.05, true);
+      MapDriver driver = MapDriver.prepare(periods, TemporalStep.DAY, new DatedSeries(TemporalStep.DAY, dDates, d),
+          settings);
+      for (int lanes : new int[] {16, 13}) {
+        double[][] values = new double[lanes][n];
+        for (double[] lane : values) {
+          for (int p = 0; p < n; p++) {
+            lane[p] = random.nextDouble() < 0.1 ? Double.NaN : 1 + random.nextGaussian();
+          }
+        }
+        double[][] fused = crossProducts(driver, settings, values, MapLagKernel.Arithmetic.FUSED);
+        double[][] vector = crossProducts(driver, settings, values, MapLagKernel.Arithmetic.VECTOR);
+        for (int j = 0; j < lanes; j++) {
+          for (int l = 0; l < settings.lagCount(); l++) {
+            String where = "lags " + Arrays.toString(range) + " lanes " + lanes + " lane " + j + " lag index " + l;
+            assertFalse(Double.isNaN(fused[j][l]), where);
+            assertEquals(Double.doubleToLongBits(fused[j][l]), Double.doubleToLongBits(vector[j][l]), where);
+            compared++;
+          }
+        }
+      }
+    }
+    assertEquals((16 + 13) * (37 + 31 + 1 + 3), compared, "cross products compared");
+  }
+
+  private static double[][] crossProducts(MapDriver driver, CorrelationSettings settings, double[][] values,
+      MapLagKernel.Arithmetic arithmetic) {
+    int lanes = values.length, n = values[0].length;
+    MapLagKernel kernel = new MapLagKernel(driver, 16, n, driver.axisIndex(0), arithmetic);
+    kernel.begin(lanes);
+    for (int j = 0; j < lanes; j++) {
+      for (int p = 0; p < n; p++) {
+        kernel.set(p, j, values[j][p]);
+      }
+    }
+    kernel.scan(lanes);
+    boolean[] fast = new boolean[16];
+    Arrays.fill(fast, 0, lanes, true);
+    kernel.prepare(fast);
+    double[][] cross = new double[lanes][settings.lagCount()];
+    for (double[] c : cross) {
+      Arrays.fill(c, Double.NaN);
+    }
+    kernel.correlate((j, l, r, pairs, c) -> cross[j][l] = c);
+    return cross;
   }
 
   /** The native step to period cut, against TemporalAggregation's own cut on the same axis. */
