@@ -69,7 +69,7 @@ final class AnalysisPrinter {
             return "map correlation of " + QueryPrinter.series(m.values()) + " over " + QueryPrinter.print(m.region())
                     + " with " + QueryPrinter.series(m.driver()) + " over " + QueryPrinter.print(m.driverRegion())
                     + " " + QueryPrinter.period(m.period()) + " " + QueryPrinter.step(m.step())
-                    + m.lag().map(l -> " at lag " + duration(l)).orElse("") + method(m.method())
+                    + m.lags().map(AnalysisPrinter::lags).orElse("") + method(m.method())
                     + m.deseasonalized().map(AnalysisPrinter::deseasonalized).orElse("");
         }
         return null;

@@ -37,6 +37,7 @@ import org.slackwater.query.ast.ComparisonKind;
 import org.slackwater.query.ast.Coordinate;
 import org.slackwater.query.ast.Coverage;
 import org.slackwater.query.ast.GapAllowance;
+import org.slackwater.query.ast.CellExport;
 import org.slackwater.query.ast.DescribeVariable;
 import org.slackwater.query.ast.Expression;
 import org.slackwater.query.ast.Identifier;
@@ -114,6 +115,12 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
                 Optional.ofNullable(ctx.gapClause()).map(this::visitGapClause),
                 Optional.ofNullable(ctx.coverageClause()).map(this::visitCoverageClause),
                 position(ctx));
+    }
+
+    @Override
+    public CellExport visitCellExport(SlackwaterParser.CellExportContext ctx) {
+        return new CellExport(visitVariable(ctx.variable()), visitRegion(ctx.region()), (Period) visit(ctx.period()),
+                Optional.ofNullable(ctx.unitClause()).map(this::visitUnitClause), position(ctx));
     }
 
     @Override
@@ -231,7 +238,7 @@ final class AstBuilder extends SlackwaterBaseVisitor<Node> {
                 visitRegion(ctx.region(1)),
                 (Period) visit(ctx.period()),
                 (Step) visit(ctx.step().stepUnit()),
-                Optional.ofNullable(ctx.singleLag()).map(durations::singleLag),
+                lags(ctx.lagClause()),
                 method(ctx.methodClause()),
                 Optional.ofNullable(ctx.deseasonalizeClause()).map(this::deseasonalized),
                 position(ctx.getParent()));

@@ -54,17 +54,11 @@ final class Durations {
         return duration;
     }
 
-    /** {@code at lag <n> <unit>} as one signed duration. */
-    Duration singleLag(SingleLagContext ctx) {
-        DurationUnit unit = unit(ctx.durationUnit());
-        int amount = lag(ctx.lagValue(), unit);
-        return new Duration(amount, unit, Literals.position(ctx.lagValue().getStart()));
-    }
-
     /** {@code at lag <n> <unit>} as a range of one lag. */
     LagRange singleLagRange(SingleLagContext ctx) {
-        Duration lag = singleLag(ctx);
-        return new LagRange(lag.amount(), lag.amount(), 1, lag.unit(), Literals.position(ctx.getStart()));
+        DurationUnit unit = unit(ctx.durationUnit());
+        int amount = lag(ctx.lagValue(), unit);
+        return new LagRange(amount, amount, 1, unit, Literals.position(ctx.getStart()));
     }
 
     LagRange range(LagRangeContext ctx) {

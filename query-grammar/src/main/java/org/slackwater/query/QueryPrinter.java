@@ -18,6 +18,7 @@ import org.slackwater.query.ast.Coverage;
 import org.slackwater.query.ast.GapAllowance;
 import org.slackwater.query.ast.DerivedVariable;
 import org.slackwater.query.ast.Coordinate;
+import org.slackwater.query.ast.CellExport;
 import org.slackwater.query.ast.DescribeVariable;
 import org.slackwater.query.ast.ListRegions;
 import org.slackwater.query.ast.ListVariables;
@@ -84,6 +85,11 @@ public final class QueryPrinter {
         }
         if (statement instanceof DerivedVariable) {
             return ExpressionPrinter.let((DerivedVariable) statement);
+        }
+        if (statement instanceof CellExport) {
+            CellExport c = (CellExport) statement;
+            return "cells of " + c.variable().name() + " over " + print(c.region()) + " " + period(c.period())
+                    + c.unit().map(QueryPrinter::unitClause).orElse("");
         }
         String analysis = AnalysisPrinter.print(statement);
         if (analysis != null) {

@@ -21,7 +21,7 @@ import org.antlr.v4.runtime.misc.IntervalSet;
 final class SyntaxErrors {
 
     private static final IntervalSet STATEMENT_START = set(MEAN, SUM, MIN, MAX, MEDIAN, PERCENTILE_STAT, LIST,
-            DESCRIBE, CORRELATE, RANK, WINDOW, MAP, WATCH, LET);
+            DESCRIBE, CORRELATE, RANK, WINDOW, MAP, WATCH, LET, CELLS);
     private static final IntervalSet IDENTIFIER = set(IDENT, N, S, E, W, M, KM);
     private static final IntervalSet STATISTIC = set(MEAN, SUM, MIN, MAX, MEDIAN, PERCENTILE_STAT);
     private static final IntervalSet SERIES_START = union(STATISTIC, IDENTIFIER);
@@ -59,7 +59,7 @@ final class SyntaxErrors {
                     + " minus <period>, in <unit>, as <comparison>";
     private static final String CORRELATION_MAP_ORDER =
             "the clauses of a correlation map come in this order: of <series> over <region>,"
-                    + " with <series> over <region>, from/during <period>, by <step>, then optionally at lag,"
+                    + " with <series> over <region>, from/during <period>, by <step>, then optionally lags,"
                     + " using <method>, deseasonalized";
 
     private static final String WITHIN_REGION =
@@ -375,7 +375,7 @@ final class SyntaxErrors {
         }
         if (contains(expected, STATEMENT_START)) {
             return "a statement starts with mean, sum, min, max, median, pNN, list, describe, correlate, rank,"
-                    + " window, map, watch or let";
+                    + " window, map, watch, let or cells";
         }
         if (contains(expected, CONDITION_START)) {
             return "a condition compares a series with a number, e.g. 'mean chlorophyll above 10 mg/m3', or its"

@@ -234,7 +234,8 @@ class AstTest {
     void erasingPositionsReachesEveryNewNode() {
         Script parsed = QueryParser.parse(String.join(";\n", LanguageV1ExamplesTest.CORRELATE_OPTIONS,
                 LanguageV1ExamplesTest.RANK, LanguageV1ExamplesTest.WINDOW, LanguageV1ExamplesTest.MAP_DIFFERENCE,
-                LanguageV1ExamplesTest.MAP_ANOMALY, LanguageV1ExamplesTest.MAP_CORRELATION, LanguageV1ExamplesTest.WATCH,
+                LanguageV1ExamplesTest.MAP_ANOMALY, LanguageV1ExamplesTest.MAP_CORRELATION,
+                LanguageV1ExamplesTest.MAP_CORRELATION_LAGS, LanguageV1ExamplesTest.WATCH,
                 LanguageV1ExamplesTest.RANK_WITHIN, LanguageV1ExamplesTest.CORRELATE_WITHIN,
                 LanguageV1ExamplesTest.WINDOW_WITHIN,
                 "let z = -(a - 2 degC) * b"));

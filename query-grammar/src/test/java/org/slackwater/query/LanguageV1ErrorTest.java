@@ -160,8 +160,16 @@ class LanguageV1ErrorTest {
                 row("map correlation of chlorophyll with runoff", "with",
                         "expected 'over' after 'chlorophyll', found 'with'"),
                 row(CMAP, END, "expected 'by <step>' after '2025', found end of query"),
-                row(CMAP + "by week lags 0 to 4 weeks", "lags", "unexpected 'lags' after 'week'; expected one of:"
-                        + " as anomalies, at lag, using, deseasonalized, ';', end of query"),
+                row(CMAP + "by week foo", "foo", "unexpected 'foo' after 'week'; expected one of:"
+                        + " as anomalies, at lag, lags, using, deseasonalized, ';', end of query"),
+                row(CMAP + "by week lags 26 to 0 weeks", "0 weeks",
+                        "the lags end at 0 weeks, before they start at 26 weeks"),
+                row(CMAP + "by week lags 0 to 26 weeks step 0 weeks", "0 weeks", "the lag step must be at least 1 week"),
+                row(CMAP + "by week lags 0 to 26 weeks step 14 days", "days",
+                        "the lag step must be in weeks, like the lags, found 'days'"),
+                row(CMAP + "by week lags 0 to 26.5 weeks", "26.5", "the lag must be a whole number of weeks, found 26.5"),
+                row(CMAP + "by week lags 0 to 26 weeks at lag 2 weeks", "at lag", "unexpected 'at' after 'weeks';"
+                        + " expected one of: as anomalies, step, using, deseasonalized, ';', end of query"),
                 row(CMAP + "by week at lag 1.5 weeks", "1.5", "the lag must be a whole number of weeks, found 1.5"),
                 // watch
                 row("watch", END, "expected the watch's name in double quotes after 'watch', found end of query"),
@@ -248,6 +256,10 @@ class LanguageV1ErrorTest {
                 Arguments.of(CORRELATE + "deseasonalized using spearman", "the clauses of a correlation come in this"
                         + " order: with <series>, over <region>, from/during <period>, by <step>, then optionally lags,"
                         + " using <method>, deseasonalized, with coverage"),
+                Arguments.of(CMAP + "by week using spearman lags 0 to 4 weeks", "the clauses of a correlation map"
+                        + " come in this order: of <series> over <region>, with <series> over <region>, from/during"
+                        + " <period>, by <step>, then optionally lags, using <method>, deseasonalized"),
+                Arguments.of(CMAP + "by week lags 26 to 0 weeks", "put the smaller lag first"),
                 Arguments.of(MAP + "by month", "the clauses of a map come in this order: over <region>,"
                         + " from/during <period>, then optionally minus <period>, in <unit>, as <comparison>"),
                 Arguments.of(WINDOW + "2014-06 of rainfall over \"Outer Bay\"",

@@ -92,6 +92,10 @@ class LanguageV1ExamplesTest {
             + " against 2006 to 2020";
     static final String MAP_CORRELATION = "map correlation of chlorophyll over \"Outer Bay\" with mean runoff"
             + " over \"Harle Watershed\" during 2006 to 2025 by week at lag 4 weeks";
+    /** Many lags on a map, with every optional clause after them. */
+    static final String MAP_CORRELATION_LAGS = "map correlation of chlorophyll over \"Outer Bay\" with sum runoff"
+            + " over \"Harle Watershed\" during 2006 to 2025 by week lags -4 to 26 weeks step 2 weeks using spearman"
+            + " deseasonalized against 2006 to 2020";
     static final String WATCH = "watch \"North Intake bloom\" over \"North Intake\" when mean chlorophyll above"
             + " 10 mg/m3 for 3 days or (standardized anomaly of sum runoff over 30 days above 2 against 2006 to 2020)";
     static final String LET = "let sediment = 1.3 * turbidity + 2.1 in mg/L";
@@ -147,8 +151,13 @@ class LanguageV1ExamplesTest {
                                 Optional.of(new UnitRef("FNU", NONE)), NONE)),
                 Arguments.of(MAP_CORRELATION, new CorrelationMap(mean("chlorophyll"), named("Outer Bay"), mean("runoff"),
                         named("Harle Watershed"), period(year(2006), year(2025)), step(StepKind.WEEK),
-                        Optional.of(new Duration(4, DurationUnit.WEEK, NONE)), CorrelationMethod.PEARSON,
+                        Optional.of(new LagRange(4, 4, 1, DurationUnit.WEEK, NONE)), CorrelationMethod.PEARSON,
                         Optional.empty(), NONE)),
+                Arguments.of(MAP_CORRELATION_LAGS, new CorrelationMap(mean("chlorophyll"), named("Outer Bay"),
+                        new SeriesTerm(Statistic.of(StatisticKind.SUM, NONE), id("runoff"), Optional.empty(), NONE),
+                        named("Harle Watershed"), period(year(2006), year(2025)), step(StepKind.WEEK),
+                        Optional.of(new LagRange(-4, 26, 2, DurationUnit.WEEK, NONE)), CorrelationMethod.SPEARMAN,
+                        Optional.of(new Deseasonalized(Optional.of(period(year(2006), year(2020))), NONE)), NONE)),
                 Arguments.of(WATCH, new Watch("North Intake bloom", named("North Intake"), List.of(new WatchRule(
                         new AnyOf(List.of(
                                 new ThresholdCondition(watchSeries(StatisticKind.MEAN, "chlorophyll", null),

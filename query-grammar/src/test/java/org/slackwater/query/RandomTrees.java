@@ -47,6 +47,7 @@ import org.slackwater.query.ast.ComparisonKind;
 import org.slackwater.query.ast.Coordinate;
 import org.slackwater.query.ast.Coverage;
 import org.slackwater.query.ast.GapAllowance;
+import org.slackwater.query.ast.CellExport;
 import org.slackwater.query.ast.DescribeVariable;
 import org.slackwater.query.ast.Identifier;
 import org.slackwater.query.ast.ListRegions;
@@ -87,7 +88,7 @@ final class RandomTrees {
     }
 
     Statement statement() {
-        switch (random.nextInt(16)) {
+        switch (random.nextInt(17)) {
             case 0:
                 return new ListVariables(NONE);
             case 1:
@@ -108,6 +109,8 @@ final class RandomTrees {
                 return watch();
             case 9:
                 return derivedVariable();
+            case 10:
+                return cellExport();
             default:
                 return areaSeries();
         }
@@ -159,7 +162,7 @@ final class RandomTrees {
 
     CorrelationMap correlationMap() {
         return new CorrelationMap(series(), region(2), series(), region(2), period(), step(),
-                maybe(() -> duration(-20, 20, DurationUnit.values())), pick(CorrelationMethod.values()),
+                maybe(this::lags), pick(CorrelationMethod.values()),
                 maybe(this::deseasonalized), NONE);
     }
 
@@ -297,6 +300,10 @@ final class RandomTrees {
         int month = 1 + random.nextInt(12);
         return PartialDate.ofDay(year, month, 1 + random.nextInt(java.time.YearMonth.of(year, month).lengthOfMonth()),
                 NONE);
+    }
+
+    CellExport cellExport() {
+        return new CellExport(variable(), region(3), period(), maybe(() -> new UnitRef(pick(UNITS), NONE)), NONE);
     }
 
     AreaSeries areaSeries() {

@@ -47,8 +47,10 @@ import org.slackwater.query.ast.Watch;
  * parses, holds only statements the server runs (area series, catalog questions, correlate,
  * rank drivers, window, maps other than correlation maps, let and watch) and uses only the demo
  * scenario's names and years, with lag ranges small enough for the server's documentation test
- * to stay fast; the one statement still being built (the correlation map) is fenced as text,
- * parses, prints back and uses only demo names; every error example of the parser gives the
+ * to stay fast; a statement being built is fenced as text, parses, prints back and uses only demo
+ * names; an example that needs a variable the demo lacks (a Kd cube for the euphotic depth) is
+ * fenced as text in its own subsection, parses, prints back and uses only the demo's names and
+ * that variable; every error example of the parser gives the
  * documented message; and every example of the errors the server finds against the data is
  * valid syntax, with its documented position at a node of the tree, so that only the server
  * can be the one refusing it.
@@ -64,7 +66,8 @@ class ReadmeTest {
     /** The statements the server executes, the only ones a swq block may hold. */
     private static final Set<Class<?>> RUNNABLE = Set.of(AreaSeries.class, DescribeVariable.class,
             ListVariables.class, ListRegions.class, Correlation.class, DriverRanking.class, EventWindow.class,
-            StatisticMap.class, DifferenceMap.class, ComparisonMap.class, CorrelationMap.class, DerivedVariable.class, Watch.class);
+            StatisticMap.class, DifferenceMap.class, ComparisonMap.class, CorrelationMap.class, DerivedVariable.class, Watch.class,
+            org.slackwater.query.ast.CellExport.class);
     /** The statements that parse but that the server refuses as not run yet. */
     private static final Set<Class<?>> BEING_BUILT = Set.of();
     /** Must stand verbatim in the watch section: every watch answer of the server carries it (WatchStatements.CAUTION). */
@@ -73,6 +76,9 @@ class ReadmeTest {
     private static final String DATA_ERRORS = "### Errors found against the data";
     private static final java.util.regex.Pattern DOCUMENTED_ERROR =
             java.util.regex.Pattern.compile("line (\\d+):(\\d+): \\S.*");
+    /** The subsections whose text examples need a variable the demo lacks, and those variables. */
+    private static final java.util.Map<String, Set<String>> OTHER_DATA = java.util.Map.of(
+            "### Light: euphotic depth", Set.of("kd"));
     /** At most 27 lags (0 to 26 weeks) in one swq example, reaching at most 26 weeks or 6 months. */
     private static final int MAX_LAGS = 27;
     private static final int MAX_LAG_DAYS = 6 * 31;
@@ -114,6 +120,35 @@ class ReadmeTest {
         return examples;
     }
 
+    /** The examples that need a variable the demo lacks: text blocks without "=>" in {@link #OTHER_DATA}'s subsections. */
+    static List<String> otherDataExamples() throws IOException {
+        List<String> examples = new ArrayList<>();
+        for (Block block : fenced("text")) {
+            if (!block.text().contains("\n=> ") && OTHER_DATA.containsKey(block.subsection())) {
+                examples.add(block.text());
+            }
+        }
+        return examples;
+    }
+
+    @Test
+    void examplesNeedingOtherDataParsePrintBackAndNameOnlyTheirVariable() throws IOException {
+        assertFalse(otherDataExamples().isEmpty());
+        for (Block block : fenced("text")) {
+            if (block.text().contains("\n=> ") || !OTHER_DATA.containsKey(block.subsection())) {
+                continue;
+            }
+            Script script = QueryParser.parse(block.text());
+            Set<String> variables = withLetNames(script);
+            variables.addAll(OTHER_DATA.get(block.subsection()));
+            checkNames(script, variables, block.text());
+            for (Period period : nodes(script, Period.class)) {
+                checkWithinData(period, block.text());
+            }
+            assertEquals(AstPositions.erase(script), AstPositions.erase(QueryParser.parse(QueryPrinter.print(script))));
+        }
+    }
+
     @Test
     void readmeHasExamplesOfEveryKind() throws IOException {
         assertTrue(swqBlocks().size() >= 25, "swq examples");
@@ -137,7 +172,7 @@ class ReadmeTest {
 
     @Test
     void swqBlocksHoldOnlyStatementsTheServerRuns() throws IOException {
-        // The server's documentation test runs every swq block; a correlation map it refuses as not run yet.
+        // The server's documentation test runs every swq block; a statement it does not run would fail there.
         for (String block : swqBlocks()) {
             for (Statement statement : QueryParser.parse(block).statements()) {
                 assertTrue(RUNNABLE.contains(statement.getClass()), block);
@@ -163,6 +198,7 @@ class ReadmeTest {
         other.removeAll(errorExamples());
         other.removeAll(dataErrorExamples());
         other.removeAll(statementsBeingBuilt());
+        other.removeAll(otherDataExamples());
         assertEquals(List.of(), other);
     }
 

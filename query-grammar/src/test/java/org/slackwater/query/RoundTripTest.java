@@ -37,7 +37,8 @@ class RoundTripTest {
         return Stream.of(LanguageV1ExamplesTest.CORRELATE, LanguageV1ExamplesTest.CORRELATE_OPTIONS,
                 LanguageV1ExamplesTest.RANK, LanguageV1ExamplesTest.WINDOW, LanguageV1ExamplesTest.WINDOW_DATES,
                 LanguageV1ExamplesTest.MAP, LanguageV1ExamplesTest.MAP_DIFFERENCE, LanguageV1ExamplesTest.MAP_ANOMALY,
-                LanguageV1ExamplesTest.MAP_CORRELATION, LanguageV1ExamplesTest.WATCH, LanguageV1ExamplesTest.LET,
+                LanguageV1ExamplesTest.MAP_CORRELATION, LanguageV1ExamplesTest.MAP_CORRELATION_LAGS,
+                LanguageV1ExamplesTest.WATCH, LanguageV1ExamplesTest.LET,
                 LanguageV1ExamplesTest.RANK_WITHIN, LanguageV1ExamplesTest.CORRELATE_WITHIN,
                 LanguageV1ExamplesTest.WINDOW_WITHIN,
                 "correlate p90 turbidity within circle(44.1 N, 31.2 W, 3 km) clipped to (\"Mid Reach\" clipped to"
@@ -79,6 +80,12 @@ class RoundTripTest {
                         + " lags 0 to 12 weeks step 1 week using pearson as anomalies"));
         assertEquals("correlate mean a with mean b over \"Outer Bay\" during 2014 by day at lag 1 day",
                 print("correlate a with b over \"Outer Bay\" during 2014 by day lags 1 to 1 days"));
+        // A map's lags print as correlate's: one lag as 'at lag', step 1 left out, other steps written.
+        String map = "map correlation of mean a over \"Outer Bay\" with mean b over \"Mid Reach\" during 2014 by week";
+        assertEquals(map + " at lag -1 week", print(map + " lags -1 to -1 weeks"));
+        assertEquals(map + " lags 0 to 12 weeks", print(map + " lags 0 to 12 weeks step 1 week"));
+        assertEquals(map + " lags -4 to 12 weeks step 4 weeks using spearman",
+                print(map + " LAGS -4 TO 12 WEEK STEP 4 WEEK using spearman"));
         assertEquals("watch \"w\" over \"North Intake\" when mean a above 1 or mean b above 2 and not (mean c above 3"
                         + " or mean d above 4)",
                 print("watch \"w\" over \"North Intake\" when (a above 1) or ((b above 2) and not (c above 3 or d above 4))"

@@ -127,6 +127,7 @@ statement
     | MAP mapSpec                                                                              # map
     | WATCH STRING OVER region watchRule+                                                      # watch
     | LET variable EQUALS expression unitClause?                                               # derivedVariable
+    | CELLS OF variable OVER region period unitClause?                                         # cellExport
     ;
 
 // 'list variables' and 'list regions' share their first word; one rule keeps the grammar LL(1).
@@ -311,7 +312,7 @@ baselineClause
 mapSpec
     : mapTerm OVER region period differenceClause? unitClause? comparisonClause?          # statisticMap
     | CORRELATION OF mapTerm OVER region WITH mapTerm OVER region period step
-          singleLag? methodClause? deseasonalizeClause?                                   # correlationMap
+          lagClause? methodClause? deseasonalizeClause?                                   # correlationMap
     ;
 
 differenceClause
@@ -456,6 +457,7 @@ MONTHS       : 'months' ;
 SEASONS      : 'seasons' ;
 YEARS        : 'years' ;
 MAP          : 'map' ;
+CELLS        : 'cells' ;
 MINUS_WORD   : 'minus' ;
 CORRELATION  : 'correlation' ;
 WATCH        : 'watch' ;

@@ -38,6 +38,10 @@ public final class AstPositions {
         if (node instanceof ListRegions) {
             return new ListRegions(none);
         }
+        if (node instanceof CellExport) {
+            CellExport c = (CellExport) node;
+            return new CellExport(erase(c.variable()), erase(c.region()), erase(c.period()), c.unit().map(AstPositions::erase), none);
+        }
         if (node instanceof DescribeVariable) {
             return new DescribeVariable(erase(((DescribeVariable) node).variable()), none);
         }
@@ -139,7 +143,7 @@ public final class AstPositions {
         }
         if (node instanceof CorrelationMap m) {
             return new CorrelationMap(erase(m.values()), erase(m.region()), erase(m.driver()),
-                    erase(m.driverRegion()), erase(m.period()), erase(m.step()), eraseAll(m.lag()), m.method(),
+                    erase(m.driverRegion()), erase(m.period()), erase(m.step()), eraseAll(m.lags()), m.method(),
                     eraseAll(m.deseasonalized()), none);
         }
         if (node instanceof Watch w) {

@@ -5,10 +5,10 @@ import java.util.Optional;
 
 /**
  * {@code map correlation of <values> over <region> with <driver> over <driverRegion> <period>
- * by <step> [at lag <lag>] [using <method>] [deseasonalized]}: in each cell of {@code region},
- * the correlation of that cell's series with the one area series of the driver over
- * {@code driverRegion}. A positive lag means the driver leads, as in {@link Correlation}; no
- * lag means lag 0.
+ * by <step> [lags ... | at lag ...] [using <method>] [deseasonalized]}: in each cell of
+ * {@code region}, the correlation of that cell's series with the one area series of the driver
+ * over {@code driverRegion}, at every lag of {@code lags}. The lags are those of
+ * {@link Correlation}: a positive lag means the driver leads; no lag clause means lag 0 only.
  *
  * @throws IllegalArgumentException if either series has a region of its own: the map's regions
  *     are {@code region} and {@code driverRegion}
@@ -20,7 +20,7 @@ public record CorrelationMap(
         RegionRef driverRegion,
         Period period,
         Step step,
-        Optional<Duration> lag,
+        Optional<LagRange> lags,
         CorrelationMethod method,
         Optional<Deseasonalized> deseasonalized,
         Position position)
@@ -33,7 +33,7 @@ public record CorrelationMap(
         Objects.requireNonNull(driverRegion, "driverRegion");
         Objects.requireNonNull(period, "period");
         Objects.requireNonNull(step, "step");
-        Objects.requireNonNull(lag, "lag");
+        Objects.requireNonNull(lags, "lags");
         Objects.requireNonNull(method, "method");
         Objects.requireNonNull(deseasonalized, "deseasonalized");
         Objects.requireNonNull(position, "position");

@@ -27,23 +27,25 @@ import org.slackwater.query.ast.LagRange;
 import org.slackwater.query.ast.Node;
 
 /**
- * {@code map correlation of X over R1 with Y over R2 ... by <step> [at lag N]}: every cell of X
- * over R1, as its own series at the step, correlated with the area series of Y over R2 (positive
- * lag: Y leads), with the same effective-sample-size significance as {@code correlate}. Computed
- * by {@link org.slackwater.core.analytics.CorrelationMap}.
+ * {@code map correlation of X over R1 with Y over R2 ... by <step> [lags a to b unit [step n
+ * unit] | at lag N unit]}: every cell of X over R1, as its own series at the step, correlated with
+ * the area series of Y over R2 at each lag (positive lag: Y leads), with the same
+ * effective-sample-size significance as {@code correlate}. The lag clause is {@code correlate}'s
+ * and is read the same way: in steps of the series, every {@code n}-th lag from {@code a} up to at
+ * most {@code b} (a step that does not divide the range stops short of {@code b}, as there).
+ * Computed by {@link org.slackwater.core.analytics.CorrelationMap}.
  *
- * <p><b>One lag</b> (no lag clause means lag 0): one row per cell with row, column, lat, lon,
- * fraction_inside, r, n, n_effective, p_value, significant, as {@code correlate} gives that lag.
- * <b>Several lags</b> (a lag range, planned here and waiting for the grammar to accept {@code lags
- * a to b unit [step n unit]} in this statement): one row per cell for its best lag (largest |r|;
- * equal |r| to the smaller |lag|, then the positive one), with best_lag, r, n, n_effective,
- * p_value, significant (this lag alone), significant_after_bonferroni (p &lt;= alpha / the cell's
- * valid lags, as {@code rank drivers}) and valid_lags. A cell without any valid lag shows the lag
- * with the most pairs and empty r and p. Cells without data have empty values.
+ * <p><b>One lag</b> ({@code at lag}, or no lag clause for lag 0): one row per cell with row,
+ * column, lat, lon, fraction_inside, r, n, n_effective, p_value, significant, as {@code correlate}
+ * gives that lag. <b>Several lags</b> ({@code lags a to b}): one row per cell for its best lag
+ * (largest |r|; equal |r| to the smaller |lag|, then the positive one), with best_lag, r, n,
+ * n_effective, p_value, significant (this lag alone), significant_after_bonferroni (p &lt;= alpha /
+ * the cell's valid lags, as {@code rank drivers}) and valid_lags. A cell without any valid lag
+ * shows the lag with the most pairs and empty r and p. Cells without data have empty values.
  *
- * <p>Errors: lags that are not whole steps of the series or too many lags point at the lag
- * clause; a lag range at least as long as the driver's values points at the lag clause with a
- * hint; other refusals of the whole map point at the statement.
+ * <p>Errors, each with the line and column of the lag clause: lags that are not whole steps of the
+ * series; more than {@link CorrelationSettings#MAX_LAGS} lags; a lag range at least as long as the
+ * driver's values (with a hint). Other refusals of the whole map point at the statement.
  */
 final class CorrelationMapStatement {
   private CorrelationMapStatement() {}
@@ -52,13 +54,7 @@ final class CorrelationMapStatement {
       SeriesPlan driver, CorrelationSettings settings, Optional<Deseasonalize> deseasonalize, Node lagClause, List<String> warnings) {}
 
   static Plan analyze(CorrelationMap q, SeriesPlanner planner) {
-    // The grammar gives this statement a single lag today; a lag range arrives here unchanged
-    // once it accepts one ('lags a to b unit'): then this becomes q.lags().
-    Optional<LagRange> lags = q.lag().map(d -> new LagRange(d.amount(), d.amount(), 1, d.unit(), d.position()));
-    return analyze(q, lags, planner);
-  }
-
-  static Plan analyze(CorrelationMap q, Optional<LagRange> lags, SeriesPlanner planner) {
+    Optional<LagRange> lags = q.lags();
     CubeEntry cube = planner.cube(q.values().variable());
     SeriesPlanner.OnGrid on = planner.onGrid(cube, q.region());
     RegionResolver.Resolved region = on.region();
@@ -140,7 +136,9 @@ final class CorrelationMapStatement {
     String unit = SeriesPlanner.stepName(p.step());
     CorrelationSettings s = p.settings();
     if (many) {
-      meta.put("lags", s.minLag() + " to " + s.maxLag() + " " + unit + " step " + s.lagStep() + ", " + s.lagCount()
+      // The last lag computed, which a step that does not divide the range puts short of the one written.
+      int[] all = s.lags();
+      meta.put("lags", all[0] + " to " + all[all.length - 1] + " " + unit + " step " + s.lagStep() + ", " + s.lagCount()
           + " lags (positive: the driver leads)");
       meta.put("best_lag", "largest |r|; equal |r| to the smaller |lag|, then the positive one");
       meta.put("significant_after_bonferroni", "p_value <= alpha / valid_lags");

@@ -16,7 +16,6 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.slackwater.core.Workspace;
-import org.slackwater.core.analytics.ChunkCache;
 import org.slackwater.core.analytics.TemporalStep;
 import org.slackwater.core.analytics.correlation.CorrelationSettings;
 import org.slackwater.core.ingest.FakeSource;
@@ -32,9 +31,9 @@ import org.slackwater.query.ast.Position;
 
 /**
  * {@code map correlation} from query text to table: the one-lag table as before, the many-lag
- * table (planned through the statement's lag range, which the grammar does not accept yet), the
- * conversion of lags to steps and the errors. r is checked against Hipparchus on pairs built here
- * from the fake source's own values and the engine's area series.
+ * table ({@code lags a to b}), the conversion of lags to steps and the errors. r is checked
+ * against Hipparchus on pairs built here from the fake source's own values and the engine's area
+ * series. Planted lags and the errors of the lag clause: {@link CorrelationMapLagsTest}.
  */
 class CorrelationMapStatementTest {
   private static final String BOX = "Test Box";
@@ -103,15 +102,8 @@ class CorrelationMapStatementTest {
   }
 
   @Test
-  void manyLagsGiveEachCellItsBestLagWithBonferroni() throws Exception {
-    CorrelationMapStatement.Plan one = (CorrelationMapStatement.Plan) ws.engine().analyze(MAP).get(0);
-    LagRange lags = new LagRange(-3, 6, 1, DurationUnit.DAY, Position.NONE);
-    CorrelationSettings settings = CorrelationMapStatement.settings(Optional.of(lags), CorrelationMethod.PEARSON,
-        TemporalStep.DAY, MAP);
-    CorrelationMapStatement.Plan many = new CorrelationMapStatement.Plan(one.query(), one.cube(), one.weights(),
-        one.regionLabel(), one.regionWkt(), one.range(), one.step(), one.driver(), settings, one.deseasonalize(), lags,
-        one.warnings());
-    ResultTable t = CorrelationMapStatement.execute(many, new ChunkCache(ws.store(), 64L << 20), MAP);
+  void manyLagsGiveEachCellItsBestLagWithBonferroni() {
+    ResultTable t = ws.engine().run(MAP + " lags -3 to 6 days").get(0);
     assertEquals(List.of("row", "column", "lat", "lon", "fraction_inside", "best_lag", "r", "n", "n_effective", "p_value",
         "significant", "significant_after_bonferroni", "valid_lags"), names(t));
     assertEquals("-3 to 6 day step 1, 10 lags (positive: the driver leads)", t.metadata().get("lags"));
@@ -167,13 +159,14 @@ class CorrelationMapStatementTest {
   }
 
   @Test
-  void aLagBeyondTheDriversDaysPointsAtTheLag() {
+  void aLagBeyondTheDriversDaysPointsAtTheLagClause() {
     String text = MAP + " at lag 200 days";
     QueryException e = assertThrows(QueryException.class, () -> ws.engine().run(text));
     assertTrue(e.detail().startsWith("lag range too long for the driver: lag 200 reaches 200 days"), e.detail());
     assertTrue(e.detail().contains("(" + LocalDate.of(2014, 1, 1) + " to "), e.detail());
     assertEquals("use smaller lags or a longer period", e.hint());
     assertEquals(1, e.line());
-    assertEquals(text.indexOf("200") + 1, e.column());
+    // At the clause, as correlate reports it ('at lag' is a lag range of one lag).
+    assertEquals(text.indexOf("at lag 200") + 1, e.column());
   }
 }
