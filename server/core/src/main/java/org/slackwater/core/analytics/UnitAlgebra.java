@@ -135,7 +135,7 @@ public record UnitAlgebra(Unit known, Map<String, Integer> opaque) {
       return new double[] {1, 0};
     }
     Unit a = known != null ? known : udunits("1"), b = target.known != null ? target.known : udunits("1");
-    if (!a.isCompatible(b)) {
+    if (!UnitConversion.sameQuantity(a, b)) {
       throw new IllegalArgumentException("'" + this + "' and '" + target + "' are different quantities");
     }
     try {

@@ -26,7 +26,7 @@ public record UnitConversion(String from, String to, double scale, double offset
       return new UnitConversion(from, to, 1, 0);
     }
     Unit a = parse(from), b = parse(to);
-    if (a == null || b == null || !a.isCompatible(b)) {
+    if (a == null || b == null || !sameQuantity(a, b)) {
       throw new UnitMismatchException("values in '" + from + "' cannot be converted to '" + to + "'"
           + (a == null ? " ('" + from + "' is not a udunits unit)" : b == null ? " ('" + to + "' is not a unit udunits knows)" : ""));
     }
@@ -41,6 +41,19 @@ public record UnitConversion(String from, String to, double scale, double offset
   }
 
   /** Whether {@code unit} parses as a udunits unit. */
+  /**
+   * Whether two units measure the same quantity: their derived (base SI) units are equal. Not
+   * udunits' {@code isCompatible}, which in this version also accepts a unit and its reciprocal
+   * (m and m-1) and converts between them by doing nothing.
+   */
+  static boolean sameQuantity(Unit a, Unit b) {
+    try {
+      return a.getDerivedUnit().equals(b.getDerivedUnit());
+    } catch (RuntimeException e) {
+      return false;
+    }
+  }
+
   public static boolean known(String unit) {
     return parse(unit) != null;
   }

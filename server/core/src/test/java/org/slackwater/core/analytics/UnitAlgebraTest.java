@@ -37,6 +37,19 @@ class UnitAlgebraTest {
   }
 
   @Test
+  void aUnitAndItsReciprocalAreDifferentQuantities() {
+    // ucar.units' isCompatible accepts m with m-1 (by identity); a length is not an attenuation.
+    assertFalse(UnitAlgebra.parse("m").compatible(UnitAlgebra.parse("m-1")));
+    assertFalse(UnitAlgebra.parse("s").compatible(UnitAlgebra.parse("Hz")));
+    assertThrows(UnitConversion.UnitMismatchException.class, () -> UnitConversion.between("m", "m-1"));
+    // 1/m and m-1 are one unit; km and m, degC and K, mg/L and g/m3 stay convertible (SI).
+    assertEquals(1, UnitConversion.between("1/m", "m-1").scale(), 1e-12);
+    assertEquals(1000, UnitConversion.between("km", "m").scale(), 1e-9);
+    assertEquals(273.15, UnitConversion.between("degC", "K").offset(), 1e-9);
+    assertEquals(1, UnitConversion.between("mg/L", "g/m3").scale(), 1e-12);
+  }
+
+  @Test
   void temperaturesConvertWithTheirOffset() {
     // degF = degC x 9/5 + 32.
     assertArrayEquals(new double[] {1.8, 32}, UnitAlgebra.parse("degC").conversionTo(UnitAlgebra.parse("degF")), 1e-9);
