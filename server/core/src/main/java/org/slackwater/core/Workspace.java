@@ -63,7 +63,15 @@ public final class Workspace implements AutoCloseable {
   }
 
   public static Workspace open(Path root) throws IOException {
-    return open(root, 1L << 30, 512L << 20, ChunkLayout.DEFAULT);
+    return open(root, 1L << 30, defaultCacheBytes(), ChunkLayout.DEFAULT);
+  }
+
+  /**
+   * The chunk cache's default budget: 512 MB, or a quarter of the heap where that is less, so a
+   * server started with a small heap still has room for the requests themselves.
+   */
+  public static long defaultCacheBytes() {
+    return Math.min(512L << 20, Runtime.getRuntime().maxMemory() / 4);
   }
 
   public static Workspace open(Path root, long memoryLimitBytes, long cacheBytes, ChunkLayout layout) throws IOException {
@@ -72,7 +80,7 @@ public final class Workspace implements AutoCloseable {
 
   /** Opens with cell areas measured on {@code areas} (the sphere unless told otherwise). */
   public static Workspace open(Path root, AreaModel areas) throws IOException {
-    return new Workspace(root, 1L << 30, 512L << 20, ChunkLayout.DEFAULT, areas);
+    return new Workspace(root, 1L << 30, defaultCacheBytes(), ChunkLayout.DEFAULT, areas);
   }
 
   private static List<CubeSource> loadSources() {

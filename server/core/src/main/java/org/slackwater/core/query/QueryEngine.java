@@ -9,10 +9,12 @@ import org.slackwater.core.analytics.ChunkCache;
 import org.slackwater.core.analytics.ChunkSource;
 import org.slackwater.core.catalog.Catalog;
 import org.slackwater.core.result.ResultTable;
+import org.slackwater.core.result.TableStream;
 import org.slackwater.query.QueryParser;
 import org.slackwater.query.QueryPrinter;
 import org.slackwater.query.QueryException;
 import org.slackwater.query.ast.AreaSeries;
+import org.slackwater.query.ast.CellExport;
 import org.slackwater.query.ast.Correlation;
 import org.slackwater.query.ast.DerivedVariable;
 import org.slackwater.query.ast.Watch;
@@ -46,15 +48,74 @@ public final class QueryEngine {
     this.weights = Objects.requireNonNull(weights);
   }
 
-  /** Parses, analyses every statement (so an error in the last one is reported before any work), then executes. */
+  /** Rows of a cell export that {@link #run} still holds in one table; {@link #open} streams any number. */
+  public static final long MAX_HELD_ROWS = 2_000_000;
+
+  /**
+   * Parses, analyses every statement (so an error in the last one is reported before any work), then
+   * executes, every result whole in memory. A cell export is held too, up to {@link #MAX_HELD_ROWS}
+   * rows; {@link #open} streams longer ones.
+   */
   public List<ResultTable> run(String text) {
     Analysis a = analysis(text);
+    for (Object plan : a.plans()) {
+      if (plan instanceof CellExportStatement.Plan p && p.rows() > MAX_HELD_ROWS) {
+        throw QueryException.at(p.query(), text, "this export has " + p.rows() + " rows, more than the "
+            + MAX_HELD_ROWS + " an answer held in memory may have",
+            "ask the HTTP query endpoint (POST /api/query), which streams it as CSV, JSON or Arrow, or export a shorter period or a smaller region");
+      }
+    }
     ChunkSource chunks = a.derived().chunks(cache);
     List<ResultTable> out = new ArrayList<>();
     for (int i = 0; i < a.plans().size(); i++) {
       out.add(execute(a.plans().get(i), chunks, text).with(ResultKind.KEY, a.kinds().get(i).label()));
     }
     return out;
+  }
+
+  /** What {@link #open} answers: tables held whole, or the rows of one export as they are read. */
+  public sealed interface Answer permits Answer.Tables, Answer.Rows {
+    /** Every statement's result, as {@link #run} gives them. */
+    record Tables(List<ResultTable> tables) implements Answer {}
+
+    /** The rows of the request's one cell export; the caller closes the stream. */
+    record Rows(TableStream stream) implements Answer {}
+  }
+
+  /**
+   * Like {@link #run}, but a request whose statement is a cell export ({@code cells of ...}) is
+   * answered by a stream of its rows, read as the caller writes them out, whatever their number. Such
+   * a request holds that one statement, after any {@code let} definitions it uses.
+   */
+  public Answer open(String text) {
+    Analysis a = analysis(text);
+    int exports = 0;
+    CellExportStatement.Plan export = null;
+    for (Object plan : a.plans()) {
+      if (plan instanceof CellExportStatement.Plan p) {
+        exports++;
+        export = p;
+      }
+    }
+    if (exports == 0) {
+      ChunkSource chunks = a.derived().chunks(cache);
+      List<ResultTable> out = new ArrayList<>();
+      for (int i = 0; i < a.plans().size(); i++) {
+        out.add(execute(a.plans().get(i), chunks, text).with(ResultKind.KEY, a.kinds().get(i).label()));
+      }
+      return new Answer.Tables(out);
+    }
+    for (int i = 0; i < a.plans().size(); i++) {
+      if (a.kinds().get(i) != ResultKind.DEFINITION && a.kinds().get(i) != ResultKind.CELLS) {
+        throw QueryException.at(export.query(), text, "a cell export streams its rows and must be the request's only statement"
+            + " (after any 'let' definitions it uses)", "send the other statements in a request of their own");
+      }
+    }
+    if (exports > 1) {
+      throw QueryException.at(export.query(), text, "a request holds one cell export, this one has " + exports,
+          "send each export in a request of its own");
+    }
+    return new Answer.Rows(CellExportStatement.open(export, a.derived().chunks(cache), text));
   }
 
   /**
@@ -186,6 +247,8 @@ public final class QueryEngine {
         plans.add(CorrelationMapStatement.analyze(c, planner));
       } else if (s instanceof MapStatement m) {
         plans.add(MapStatements.analyze(m, planner));
+      } else if (s instanceof CellExport e) {
+        plans.add(CellExportStatement.analyze(e, planner));
       } else {
         throw QueryException.at(s, text, "this kind of statement is understood but not run by this server version yet",
             "see 'Statements being built' in the language reference");
@@ -213,6 +276,9 @@ public final class QueryEngine {
       }
       if (plan instanceof MapStatements.Plan p) {
         return MapStatements.execute(p, cache, text);
+      }
+      if (plan instanceof CellExportStatement.Plan p) {
+        return TableStream.collect(CellExportStatement.open(p, cache, text), MAX_HELD_ROWS);
       }
       if (plan instanceof CorrelationMapStatement.Plan p) {
         try {

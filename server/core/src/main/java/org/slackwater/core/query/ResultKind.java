@@ -22,6 +22,8 @@ public enum ResultKind {
   MAP("map"),
   CORRELATION_MAP("correlation_map"),
   WATCH("watch"),
+  /** The cube's values cell by cell and step by step (an export, streamed). */
+  CELLS("cells"),
   DEFINITION("definition"),
   CATALOG("catalog");
 
@@ -56,6 +58,9 @@ public enum ResultKind {
     }
     if (s instanceof MapStatement) {
       return MAP;
+    }
+    if (s instanceof org.slackwater.query.ast.CellExport) {
+      return CELLS;
     }
     if (s instanceof Watch) {
       return WATCH;

@@ -24,7 +24,7 @@ import org.apache.arrow.vector.types.pojo.FieldType;
 import org.apache.arrow.vector.types.pojo.Schema;
 
 /**
- * Writes a {@link ResultTable} as an Arrow IPC stream: one schema, then record batches of at most
+ * Writes a {@link ResultTable} or a {@link TableStream} as an Arrow IPC stream: one schema, then record batches of at most
  * {@link #BATCH_ROWS} rows. Dates are {@code date32} (days since 1970-01-01), numbers float64
  * (missing = null), counts int64, text utf8. Each field's metadata carries its {@code unit}; the
  * schema metadata carries the table's title, metadata and warnings ({@code warning.1}, ...), so
@@ -38,33 +38,54 @@ public final class ArrowResultWriter {
   private ArrowResultWriter() {}
 
   public static void write(ResultTable table, BufferAllocator allocator, OutputStream out) throws IOException {
+    write(TableStream.of(table), allocator, out);
+  }
+
+  /**
+   * Writes the stream batch by batch as it reads it (a batch longer than {@link #BATCH_ROWS} is cut
+   * into several), so memory is one batch's vectors; a stream without rows gets one empty batch.
+   * If the stream fails part way, the exception propagates with the batches written so far already
+   * in {@code out} and no end-of-stream marker, so a reader sees a truncated stream, not a short
+   * result.
+   */
+  public static void write(TableStream stream, BufferAllocator allocator, OutputStream out) throws IOException {
+    ResultTable header = stream.header();
     List<Field> fields = new ArrayList<>();
-    for (Column c : table.columns()) {
+    for (Column c : header.columns()) {
       Map<String, String> meta = c.unit().isEmpty() ? Map.of() : Map.of("unit", c.unit());
       fields.add(new Field(c.name(), new FieldType(true, type(c), null, meta), null));
     }
     Map<String, String> schemaMeta = new LinkedHashMap<>();
-    schemaMeta.put("title", table.title());
-    table.metadata().forEach(schemaMeta::put);
-    for (int i = 0; i < table.warnings().size(); i++) {
-      schemaMeta.put("warning." + (i + 1), table.warnings().get(i));
+    schemaMeta.put("title", header.title());
+    header.metadata().forEach(schemaMeta::put);
+    for (int i = 0; i < header.warnings().size(); i++) {
+      schemaMeta.put("warning." + (i + 1), header.warnings().get(i));
     }
     Schema schema = new Schema(fields, schemaMeta);
     try (VectorSchemaRoot root = VectorSchemaRoot.create(schema, allocator);
         ArrowStreamWriter writer = new ArrowStreamWriter(root, null, Channels.newChannel(out))) {
       writer.start();
-      int rows = table.rowCount();
-      for (int start = 0; start < rows || (rows == 0 && start == 0); start += BATCH_ROWS) {
-        int n = Math.min(BATCH_ROWS, rows - start);
+      boolean any = false;
+      for (ResultTable table = stream.next(); table != null; table = stream.next()) {
+        int rows = table.rowCount();
+        for (int start = 0; start < rows; start += BATCH_ROWS) {
+          int n = Math.min(BATCH_ROWS, rows - start);
+          root.allocateNew();
+          for (int c = 0; c < table.columns().size(); c++) {
+            fill(root.getVector(c), table.columns().get(c), start, n);
+          }
+          root.setRowCount(n);
+          writer.writeBatch();
+          any = true;
+        }
+      }
+      if (!any) {
         root.allocateNew();
-        for (int c = 0; c < table.columns().size(); c++) {
-          fill(root.getVector(c), table.columns().get(c), start, n);
+        for (FieldVector v : root.getFieldVectors()) {
+          v.setValueCount(0);
         }
-        root.setRowCount(n);
+        root.setRowCount(0);
         writer.writeBatch();
-        if (rows == 0) {
-          break;
-        }
       }
       writer.end();
     }

@@ -19,10 +19,23 @@ public final class JsonWriter {
   private JsonWriter() {}
 
   public static void write(List<ResultTable> tables, List<String> cautions, OutputStream out) throws IOException {
+    List<TableStream> streams = new java.util.ArrayList<>();
+    for (ResultTable t : tables) {
+      streams.add(TableStream.of(t));
+    }
+    document(streams, cautions, out);
+  }
+
+  /** One streamed result in the same document shape, its rows written batch by batch. */
+  public static void write(TableStream stream, List<String> cautions, OutputStream out) throws IOException {
+    document(List.of(stream), cautions, out);
+  }
+
+  private static void document(List<TableStream> results, List<String> cautions, OutputStream out) throws IOException {
     try (JsonGenerator g = FACTORY.createGenerator(out, JsonEncoding.UTF8)) {
       g.writeStartObject();
       g.writeArrayFieldStart("results");
-      for (ResultTable t : tables) {
+      for (TableStream t : results) {
         table(g, t);
       }
       g.writeEndArray();
@@ -37,7 +50,8 @@ public final class JsonWriter {
     }
   }
 
-  private static void table(JsonGenerator g, ResultTable t) throws IOException {
+  private static void table(JsonGenerator g, TableStream stream) throws IOException {
+    ResultTable t = stream.header();
     g.writeStartObject();
     g.writeStringField("title", t.title());
     g.writeArrayFieldStart("columns");
@@ -50,6 +64,24 @@ public final class JsonWriter {
     }
     g.writeEndArray();
     g.writeArrayFieldStart("rows");
+    for (ResultTable b = stream.next(); b != null; b = stream.next()) {
+      rows(g, b);
+    }
+    g.writeEndArray();
+    g.writeObjectFieldStart("metadata");
+    for (var e : t.metadata().entrySet()) {
+      g.writeStringField(e.getKey(), e.getValue());
+    }
+    g.writeEndObject();
+    g.writeArrayFieldStart("warnings");
+    for (String w : t.warnings()) {
+      g.writeString(w);
+    }
+    g.writeEndArray();
+    g.writeEndObject();
+  }
+
+  private static void rows(JsonGenerator g, ResultTable t) throws IOException {
     for (int r = 0; r < t.rowCount(); r++) {
       g.writeStartArray();
       for (Column c : t.columns()) {
@@ -65,17 +97,5 @@ public final class JsonWriter {
       }
       g.writeEndArray();
     }
-    g.writeEndArray();
-    g.writeObjectFieldStart("metadata");
-    for (var e : t.metadata().entrySet()) {
-      g.writeStringField(e.getKey(), e.getValue());
-    }
-    g.writeEndObject();
-    g.writeArrayFieldStart("warnings");
-    for (String w : t.warnings()) {
-      g.writeString(w);
-    }
-    g.writeEndArray();
-    g.writeEndObject();
   }
 }
