@@ -10,7 +10,7 @@ import java.util.Objects;
  * @param contentType the Content-Type header, or empty
  * @param body the body's bytes, exactly as sent (defensively copied)
  */
-record Answer(int status, String contentType, byte[] body) {
+record Answer(int status, String contentType, byte[] body) implements Arrival {
   Answer {
     Objects.requireNonNull(contentType);
     body = body.clone();

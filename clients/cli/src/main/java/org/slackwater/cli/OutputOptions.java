@@ -92,6 +92,66 @@ final class OutputOptions {
     return p.toString();
   }
 
+  /**
+   * A streamed answer (a cell export), copied as it arrives: to {@code --out FILE} through a
+   * {@code FILE.part} renamed once the answer is complete (so an answer that breaks off leaves no
+   * file that looks whole, and an older FILE stays as it was), or to standard output.
+   */
+  int deliver(ServerConnection.Streamed answer, PrintStream stdout, PrintStream stderr) throws CliFailure {
+    boolean toFile = out != null && !out.toString().equals(STANDARD_OUTPUT);
+    Path part = toFile ? out.resolveSibling(out.getFileName() + ".part") : null;
+    long copied = 0;
+    try (java.io.InputStream in = answer.body();
+        java.io.OutputStream sink = toFile ? Files.newOutputStream(part) : unclosed(stdout)) {
+      byte[] buffer = new byte[1 << 16];
+      for (int n = in.read(buffer); n >= 0; n = in.read(buffer)) {
+        sink.write(buffer, 0, n);
+        copied += n;
+      }
+      sink.flush();
+    } catch (IOException e) {
+      deleteQuietly(part);
+      throw new CliFailure(Cli.UNREACHABLE, "the server's answer broke off after " + copied + " bytes (" + Cli.describe(e) + ")"
+          + (toFile ? "; '" + out + "' was not written" : "; what was printed is incomplete") + "; run the query again", e);
+    }
+    if (toFile) {
+      try {
+        Files.move(part, out, java.nio.file.StandardCopyOption.REPLACE_EXISTING, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+      } catch (IOException e) {
+        deleteQuietly(part);
+        throw new CliFailure(Cli.LOCAL, "cannot write the result to '" + out + "' (" + Cli.describe(e)
+            + "); check that the folder exists and is writable", e);
+      }
+      stderr.println("wrote " + out);
+    }
+    return Cli.OK;
+  }
+
+  /** Standard output for a try-with-resources: flushed at the end, never closed. */
+  private static java.io.OutputStream unclosed(PrintStream stdout) {
+    return new java.io.FilterOutputStream(stdout) {
+      @Override
+      public void write(byte[] b, int off, int len) {
+        stdout.write(b, off, len);
+      }
+
+      @Override
+      public void close() {
+        stdout.flush();
+      }
+    };
+  }
+
+  private static void deleteQuietly(Path p) {
+    if (p != null) {
+      try {
+        Files.deleteIfExists(p);
+      } catch (IOException ignored) {
+        // nothing more to do: the message names the failure that matters
+      }
+    }
+  }
+
   int deliver(Answer answer, PrintStream stdout, PrintStream stderr) throws CliFailure {
     byte[] bytes = answer.body();
     if (table) {

@@ -38,9 +38,19 @@ final class QueryCommand implements Callable<Integer> {
   /** Sends {@code query} and delivers the answer as {@code output} says; returns the exit code. */
   static int run(Cli cli, String query, OutputOptions output) throws CliFailure {
     ServerConnection c = cli.connection();
-    Answer a = c.exchange(c.request("/api/query?" + output.parameters(cli.terminal))
+    java.net.http.HttpRequest.Builder request = c.request("/api/query?" + output.parameters(cli.terminal))
         .header("Content-Type", "text/plain; charset=utf-8")
-        .POST(java.net.http.HttpRequest.BodyPublishers.ofString(query, StandardCharsets.UTF_8)));
+        .POST(java.net.http.HttpRequest.BodyPublishers.ofString(query, StandardCharsets.UTF_8));
+    Answer a;
+    if (output.table) {
+      a = c.exchange(request);
+    } else {
+      Arrival arrival = c.exchangeStreaming(request);
+      if (arrival instanceof ServerConnection.Streamed s) {
+        return output.deliver(s, cli.out, cli.err);
+      }
+      a = (Answer) arrival;
+    }
     if (!a.ok()) {
       int code = Problems.print(a.text(), a.status(), cli.err);
       if (a.status() == NOT_ACCEPTABLE && output.format == OutputOptions.Format.csv) {

@@ -85,9 +85,40 @@ final class ServerConnection {
   }
 
   Answer exchange(HttpRequest.Builder request) throws CliFailure {
-    HttpResponse<byte[]> r;
+    return send(request, HttpResponse.BodyHandlers.ofByteArray(), r -> new Answer(r.statusCode(),
+        r.headers().firstValue("Content-Type").orElse(""), r.body()));
+  }
+
+  /**
+   * An answer whose body is read as it arrives: a streamed one (chunked, e.g. a cell export) is
+   * handed over as an open stream, which the caller closes; any other is read whole into an
+   * {@link Answer}.
+   */
+  Arrival exchangeStreaming(HttpRequest.Builder request) throws CliFailure {
+    return this.<java.io.InputStream, Arrival>send(request, HttpResponse.BodyHandlers.ofInputStream(), r -> {
+      // A cell export comes chunked and may be far larger than this client's heap: pass it on.
+      String type = r.headers().firstValue("Content-Type").orElse("");
+      boolean chunked = r.headers().firstValue("Transfer-Encoding").orElse("").equalsIgnoreCase("chunked");
+      if (chunked && r.statusCode() == 200) {
+        return new Streamed(type, r.body());
+      }
+      try (java.io.InputStream in = r.body()) {
+        return new Answer(r.statusCode(), type, in.readAllBytes());
+      }
+    });
+  }
+
+  /** A 200 answer still arriving: its content type and its body as a stream. */
+  record Streamed(String contentType, java.io.InputStream body) implements Arrival {}
+
+  @FunctionalInterface
+  private interface Reading<T, R> {
+    R read(HttpResponse<T> response) throws IOException;
+  }
+
+  private <T, R> R send(HttpRequest.Builder request, HttpResponse.BodyHandler<T> handler, Reading<T, R> reading) throws CliFailure {
     try {
-      r = http.send(request.build(), HttpResponse.BodyHandlers.ofByteArray());
+      return reading.read(http.send(request.build(), handler));
     } catch (HttpConnectTimeoutException e) {
       throw unreachable("no answer within " + CONNECT_TIMEOUT.toSeconds() + " s", e);
     } catch (ConnectException e) {
@@ -99,7 +130,6 @@ final class ServerConnection {
       Thread.currentThread().interrupt();
       throw new CliFailure(Cli.UNREACHABLE, "interrupted while waiting for the server at " + base, e);
     }
-    return new Answer(r.statusCode(), r.headers().firstValue("Content-Type").orElse(""), r.body());
   }
 
   private CliFailure unreachable(String why, Exception e) {

@@ -389,6 +389,25 @@ class CliTest {
   }
 
   @Test
+  void aStreamedExportIsCopiedAsItArrivesToTheFileAndToStandardOutput() throws Exception {
+    String export = "cells of chlorophyll over \"Outer Bay\" during 2014-07";
+    HttpResponse<byte[]> ref = direct(export, "arrow");
+    assertEquals(200, ref.statusCode());
+    assertEquals("chunked", ref.headers().firstValue("Transfer-Encoding").orElse(""), "the server streams exports");
+    Path file = dir.resolve("cells.arrow");
+    Run r = cli("query", "--format", "arrow", "--out", file.toString(), export);
+    assertEquals(0, r.code(), r.err());
+    assertArrayEquals(ref.body(), Files.readAllBytes(file));
+    assertFalse(Files.exists(dir.resolve("cells.arrow.part")), "the partial file is renamed once complete");
+    assertEquals("wrote " + file + System.lineSeparator(), r.err());
+    Run csv = cli("query", export);
+    assertEquals(0, csv.code(), csv.err());
+    assertArrayEquals(direct(export, "csv").body(), csv.outBytes());
+    assertTrue(csv.out().startsWith("time,row,column,lat [degrees_north],lon [degrees_east],fraction_inside [1],chlorophyll ["),
+        csv.out().lines().findFirst().orElse(""));
+  }
+
+  @Test
   void catalogHasOneRowPerCubeWithTheServersValues() throws Exception {
     JsonNode cubes = new ObjectMapper().readTree(get("/api/cubes"));
     Run r = cli("catalog");

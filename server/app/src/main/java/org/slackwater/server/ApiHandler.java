@@ -1,18 +1,23 @@
 package org.slackwater.server;
 
 import io.netty.buffer.Unpooled;
+import io.netty.channel.Channel;
+import io.netty.channel.ChannelFuture;
 import io.netty.channel.ChannelFutureListener;
 import io.netty.channel.ChannelHandlerContext;
 import io.netty.channel.SimpleChannelInboundHandler;
 import io.netty.handler.codec.http.DefaultFullHttpResponse;
+import io.netty.handler.codec.http.DefaultHttpResponse;
 import io.netty.handler.codec.http.FullHttpRequest;
 import io.netty.handler.codec.http.FullHttpResponse;
 import io.netty.handler.codec.http.HttpHeaderNames;
 import io.netty.handler.codec.http.HttpMethod;
+import io.netty.handler.codec.http.HttpResponse;
 import io.netty.handler.codec.http.HttpResponseStatus;
 import io.netty.handler.codec.http.HttpUtil;
 import io.netty.handler.codec.http.HttpVersion;
 import io.netty.handler.codec.http.QueryStringDecoder;
+import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.security.MessageDigest;
 import java.util.List;
@@ -184,6 +189,10 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
   }
 
   static void write(ChannelHandlerContext ctx, FullHttpRequest req, Reply reply) {
+    if (reply.streamer() != null) {
+      writeStreamed(ctx, req, reply);
+      return;
+    }
     FullHttpResponse res = new DefaultFullHttpResponse(HttpVersion.HTTP_1_1, reply.status(), Unpooled.wrappedBuffer(reply.body()));
     res.headers().set(HttpHeaderNames.CONTENT_TYPE, reply.contentType());
     res.headers().setInt(HttpHeaderNames.CONTENT_LENGTH, reply.body().length);
@@ -195,6 +204,39 @@ final class ApiHandler extends SimpleChannelInboundHandler<FullHttpRequest> {
     } else {
       res.headers().set(HttpHeaderNames.CONNECTION, "close");
       ctx.writeAndFlush(res).addListener(ChannelFutureListener.CLOSE);
+    }
+  }
+
+  /**
+   * A chunked response written while it is produced. The status and headers go first; a failure
+   * after that cannot become a problem document any more, so the connection is closed without the
+   * last chunk and the client sees an incomplete response, never a short one passed off as whole.
+   */
+  private static void writeStreamed(ChannelHandlerContext ctx, FullHttpRequest req, Reply reply) {
+    Channel channel = ctx.channel();
+    HttpResponse res = new DefaultHttpResponse(HttpVersion.HTTP_1_1, reply.status());
+    res.headers().set(HttpHeaderNames.CONTENT_TYPE, reply.contentType());
+    HttpUtil.setTransferEncodingChunked(res, true);
+    reply.headers().forEach(res.headers()::set);
+    boolean keepAlive = req != null && HttpUtil.isKeepAlive(req);
+    res.headers().set(HttpHeaderNames.CONNECTION, keepAlive ? "keep-alive" : "close");
+    channel.writeAndFlush(res);
+    ChunkedBody body = new ChunkedBody(channel);
+    try {
+      reply.streamer().writeTo(body);
+      ChannelFuture last = body.finish();
+      if (!keepAlive) {
+        last.addListener(ChannelFutureListener.CLOSE);
+      }
+    } catch (IOException | RuntimeException e) {
+      if (channel.isActive()) {
+        LOG.error("streaming {} {} failed after {} bytes; closing the connection", req == null ? "" : req.method(),
+            req == null ? "" : req.uri(), body.sent(), e);
+      } else {
+        LOG.info("client left {} {} after {} bytes: {}", req == null ? "" : req.method(), req == null ? "" : req.uri(),
+            body.sent(), e.toString());
+      }
+      channel.close();
     }
   }
 

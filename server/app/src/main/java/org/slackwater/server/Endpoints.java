@@ -31,6 +31,7 @@ import org.slackwater.core.result.ArrowResultWriter;
 import org.slackwater.core.result.CsvWriter;
 import org.slackwater.core.result.JsonWriter;
 import org.slackwater.core.result.ResultTable;
+import org.slackwater.core.result.TableStream;
 import org.slackwater.query.QueryException;
 
 /** What each route does, independent of Netty: request parts in, a {@link Reply} out. */
@@ -71,16 +72,48 @@ final class Endpoints {
       return Problem.of(HttpResponseStatus.BAD_REQUEST, "The query cannot be run",
           "the request body is empty; send the query text as the body, e.g. 'list variables'");
     }
-    List<ResultTable> tables;
+    QueryEngine.Answer answer;
     try {
-      tables = workspace.engine().run(text);
+      answer = workspace.engine().open(text);
     } catch (QueryException e) {
       return Problem.query(e);
     }
+    if (answer instanceof QueryEngine.Answer.Rows rows) {
+      return stream(rows.stream(), format.get());
+    }
+    List<ResultTable> tables = ((QueryEngine.Answer.Tables) answer).tables();
     if (format.get() == ResultFormat.PNG) {
       return plot(tables, size);
     }
     return write(tables, format.get());
+  }
+
+  /** A cell export, written row batch by row batch while it is sent (no PNG: it is rows, not a picture). */
+  private Reply stream(TableStream rows, ResultFormat format) {
+    if (format == ResultFormat.PNG) {
+      rows.close();
+      return Problem.of(HttpResponseStatus.UNPROCESSABLE_ENTITY, "No plot for these results",
+          "a cell export is the cube's values row by row and has no plot; ask for it as csv, json or arrow,"
+              + " or draw a map ('map mean <variable> over <region> ...')");
+    }
+    String type = switch (format) {
+      case ARROW -> ResultFormat.ARROW.mediaType;
+      case CSV -> "text/csv; charset=utf-8; header=present";
+      default -> JSON_TYPE;
+    };
+    return Reply.streamed(type, out -> {
+      try (rows) {
+        switch (format) {
+          case ARROW -> {
+            try (BufferAllocator a = workspace.allocator().newChildAllocator("export", 0, Long.MAX_VALUE)) {
+              ArrowResultWriter.write(rows, a, out);
+            }
+          }
+          case CSV -> CsvWriter.write(rows, new java.io.BufferedWriter(new OutputStreamWriter(out, StandardCharsets.UTF_8), 1 << 16));
+          default -> JsonWriter.write(rows, List.of(), out);
+        }
+      }
+    });
   }
 
   /** One PNG for the query's results; a result without a plot (catalog, watch) is a 422. */

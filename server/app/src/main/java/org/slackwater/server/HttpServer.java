@@ -1,5 +1,7 @@
 package org.slackwater.server;
 
+import io.netty.channel.ChannelOption;
+import io.netty.channel.WriteBufferWaterMark;
 import io.netty.bootstrap.ServerBootstrap;
 import io.netty.channel.Channel;
 import io.netty.channel.group.ChannelGroup;
@@ -37,7 +39,12 @@ public final class HttpServer implements AutoCloseable {
     ServerBootstrap b = new ServerBootstrap()
         .group(boss, io)
         .channel(NioServerSocketChannel.class)
+        // A streamed result waits while a connection holds more than the high mark unsent (ChunkedBody).
+        .childOption(ChannelOption.WRITE_BUFFER_WATER_MARK, new WriteBufferWaterMark(1 << 20, 4 << 20))
         .childHandler(new HttpInitializer(new Endpoints(workspace, config, watches), config, workers, connections));
+    // Say which correlation-map kernel runs: the vector one needs --add-modules=jdk.incubator.vector.
+    org.slf4j.LoggerFactory.getLogger(HttpServer.class).info("correlation maps use {} arithmetic",
+        org.slackwater.core.analytics.CorrelationMap.arithmetic());
     try {
       this.channel = b.bind(config.host(), config.port()).sync().channel();
     } catch (RuntimeException | InterruptedException e) {
