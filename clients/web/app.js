@@ -6,6 +6,9 @@
 (function () {
   const QUERY_URL = '/api/query';
   const MAX_ROWS_SHOWN = 500;
+  // The most of an answer the page reads (a cell export can be gigabytes; the downloads take it
+  // whole). ?read-limit-mb=N in the page's address changes it.
+  const READ_LIMIT_BYTES = readLimitMb() * 1024 * 1024;
   const TEXT_TYPE = 'text/plain; charset=utf-8';
   const FORMATS = {
     csv: { param: 'csv', accept: 'text/csv', file: 'slackwater-result.csv' },
@@ -64,7 +67,30 @@
     return dl;
   }
 
+  function readLimitMb() {
+    const asked = Number(new URLSearchParams(window.location.search).get('read-limit-mb'));
+    return Number.isFinite(asked) && asked > 0 ? asked : 32;
+  }
+
   // ---------- talking to the server ----------
+
+  /** The answer's text, or null once it grows past READ_LIMIT_BYTES (the rest is not fetched). */
+  async function readCapped(res, controller) {
+    const reader = res.body.getReader();
+    const parts = [];
+    let size = 0;
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      size += value.byteLength;
+      if (size > READ_LIMIT_BYTES) {
+        controller.abort();
+        return null;
+      }
+      parts.push(value);
+    }
+    return new TextDecoder('utf-8').decode(await new Blob(parts).arrayBuffer());
+  }
 
   async function postQuery(text, format, extra, signal) {
     let url = QUERY_URL + '?format=' + encodeURIComponent(format.param);
@@ -132,7 +158,14 @@
     }
     let answer;
     try {
-      answer = await res.json();
+      const body = await readCapped(res, controller);
+      if (body === null) {
+        if (id !== runCounter) return;
+        finishRun();
+        showTooLarge(text);
+        return;
+      }
+      answer = JSON.parse(body);
     } catch (e) {
       if (id !== runCounter) return;
       finishRun();
@@ -259,6 +292,19 @@
     }
     // With several results, each one under a caution repeats it, for readers who scroll straight to it.
     results.forEach((r, i) => resultsBox.append(resultView(r, i, cautions, results.length > 1)));
+  }
+
+  /** An answer longer than the page reads: nothing shown, the downloads offered instead. */
+  function showTooLarge(text) {
+    clearResults('');
+    clear(resultsBox);
+    errorBox.hidden = true;
+    shown.text = text;
+    for (const b of document.querySelectorAll('.download')) b.disabled = b.dataset.kind === 'png';
+    runStatus.textContent = 'The answer is larger than this page reads';
+    resultsBox.append(el('p', { class: 'too-large', role: 'status',
+      text: 'The answer is over ' + Math.round(READ_LIMIT_BYTES / 1048576) + ' MB, more than this page shows. ' +
+            'Save it with the CSV or Arrow download (the server streams it), or narrow the period or the region.' }));
   }
 
   function cautionBox(text, compact) {

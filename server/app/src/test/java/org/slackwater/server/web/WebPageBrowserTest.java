@@ -142,6 +142,29 @@ class WebPageBrowserTest {
   }
 
   @Test
+  void anAnswerLargerThanThePageReadsIsOfferedAsDownloadsInstead() throws Exception {
+    String export = "cells of turbidity over \"Outer Bay\" during 2013 to 2014";
+    int size = post(export, "?format=json").body().length;
+    assertTrue(size > 1 << 20, "the export's JSON (" + size + " bytes) is over the 1 MB the page is told to read");
+    driver.get(fixture.url() + "/?read-limit-mb=1");
+    waitFor().until(d -> d.findElements(By.cssSelector("#examples option")).size() > 1);
+    type(export);
+    driver.findElement(By.id("run")).click();
+    WebElement note = waitFor().until(d -> d.findElements(By.cssSelector("#results p.too-large")).stream().findFirst().orElse(null));
+    assertTrue(note.getText().contains("over 1 MB"), note.getText());
+    assertTrue(driver.findElements(By.cssSelector("#results article.result")).isEmpty(), "no table of a partial answer");
+    for (WebElement b : driver.findElements(By.cssSelector(".download"))) {
+      assertEquals(b.getAttribute("data-kind").equals("png"), !b.isEnabled(), "download " + b.getAttribute("data-kind"));
+    }
+    // A short export of the same cells is shown as a table, as any result.
+    type("cells of turbidity over \"Outer Bay\" during 2013-07-01");
+    driver.findElement(By.id("run")).click();
+    awaitRun();
+    int cells = postJson("cells of turbidity over \"Outer Bay\" during 2013-07-01").get("results").get(0).get("rows").size();
+    assertEquals(Math.min(cells, 500), rows(0).size());
+  }
+
+  @Test
   void aTypedQueryRunsWithCtrlEnterAndShowsTheServersRowsAndUnits() throws Exception {
     type(MONTHLY);
     editor().sendKeys(Keys.chord(Keys.CONTROL, Keys.ENTER));
