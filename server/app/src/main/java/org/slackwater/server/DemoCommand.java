@@ -58,6 +58,7 @@ public final class DemoCommand implements Callable<Integer> {
       }
       try (HttpServer server = HttpServer.start(ws, serve.config())) {
         System.out.println("listening on " + server.url());
+        System.out.println(HttpServer.kernelLine());
         System.out.println("try:");
         for (String q : EXAMPLES) {
           System.out.println("  curl -s --data-binary '" + q + "' " + server.url() + "/api/query");

@@ -42,9 +42,6 @@ public final class HttpServer implements AutoCloseable {
         // A streamed result waits while a connection holds more than the high mark unsent (ChunkedBody).
         .childOption(ChannelOption.WRITE_BUFFER_WATER_MARK, new WriteBufferWaterMark(1 << 20, 4 << 20))
         .childHandler(new HttpInitializer(new Endpoints(workspace, config, watches), config, workers, connections));
-    // Say which correlation-map kernel runs: the vector one needs --add-modules=jdk.incubator.vector.
-    org.slf4j.LoggerFactory.getLogger(HttpServer.class).info("correlation maps use {} arithmetic",
-        org.slackwater.core.analytics.CorrelationMap.arithmetic());
     try {
       this.channel = b.bind(config.host(), config.port()).sync().channel();
     } catch (RuntimeException | InterruptedException e) {
@@ -66,6 +63,13 @@ public final class HttpServer implements AutoCloseable {
   /** With another retry schedule for alert deliveries (tests use seconds, not the default minutes). */
   static HttpServer start(Workspace workspace, ServerConfig config, org.slackwater.alerts.RetryPolicy retry) throws InterruptedException {
     return new HttpServer(workspace, config, retry);
+  }
+
+  /** The line the commands print at start: which correlation-map kernel runs, and how to get the vector one. */
+  static String kernelLine() {
+    String a = org.slackwater.core.analytics.CorrelationMap.arithmetic();
+    return "correlation maps use " + a + " arithmetic" + (a.equals("VECTOR") ? ""
+        : " (start Java with --add-modules=jdk.incubator.vector for the faster vector kernel)");
   }
 
   public int port() {

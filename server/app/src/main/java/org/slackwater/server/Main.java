@@ -78,6 +78,7 @@ public final class Main implements Runnable {
       try (Workspace ws = Workspace.open(data, serve.earth); HttpServer server = HttpServer.start(ws, config);
           DropFolder drop = config.dropFolder().isPresent() ? DropFolder.start(ws.ingestor(), config.dropFolder().get()) : null) {
         System.out.println("listening on " + server.url());
+        System.out.println(HttpServer.kernelLine());
         if (drop != null) {
           System.out.println("watching the drop folder " + drop.directory());
         }

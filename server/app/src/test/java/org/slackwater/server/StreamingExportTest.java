@@ -42,7 +42,8 @@ import org.slackwater.core.Workspace;
  * arrives and checks every row against the formula the NetCDF file ({@link LongRecord}, written by
  * NetCDF-Java's {@code NetcdfFileWriter}) was filled from. Also: CSV and JSON exports are streamed in the same
  * shape as whole results, a plot of an export is a 422 problem, and the server still answers
- * afterwards.
+ * afterwards. The server JVM runs without the vector module, as {@code java -jar} starts it, so
+ * the correlation maps' scalar kernel serves a map there.
  */
 class StreamingExportTest {
   private static final int NT = 5000, NY = 40, NX = 50;
@@ -67,7 +68,8 @@ class StreamingExportTest {
     }
     Files.delete(file);
     String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
-    List<String> cmd = new ArrayList<>(List.of(java, "-Xmx128m", "--add-modules=jdk.incubator.vector"));
+    // No --add-modules: the server runs as 'java -jar' starts it, with the scalar correlation-map kernel.
+    List<String> cmd = new ArrayList<>(List.of(java, "-Xmx128m"));
     for (String pkg : List.of("java.nio", "sun.nio.ch", "java.lang", "java.util", "java.lang.invoke")) {
       cmd.add("--add-opens=java.base/" + pkg + "=ALL-UNNAMED");
     }
@@ -130,6 +132,20 @@ class StreamingExportTest {
     assertTrue(server.isAlive(), "the server survived");
     assertEquals(200, HTTP.send(HttpRequest.newBuilder(URI.create(url + "/api/health")).build(),
         HttpResponse.BodyHandlers.discarding()).statusCode());
+  }
+
+  @Test
+  void withoutTheVectorModuleCorrelationMapsRunOnTheScalarKernel() throws Exception {
+    // A cell correlated with the box's own mean: r > 0 everywhere, from the FUSED (or PLAIN) loops.
+    String q = "map correlation of record_temperature over box(44, -32, 44.2, -31.8) with mean record_temperature"
+        + " over box(44, -32, 44.2, -31.8) during 2006 by day at lag 0 days";
+    HttpResponse<InputStream> res = post(q, "json");
+    assertEquals(200, res.statusCode());
+    JsonNode result = new ObjectMapper().readTree(res.body()).get("results").get(0);
+    assertEquals(16, result.get("rows").size()); // 4 x 4 cells of 0.05 degrees
+    String log = Files.readString(dir.resolve("server.log"));
+    assertTrue(log.contains("correlation maps use FUSED arithmetic (start Java with --add-modules=jdk.incubator.vector")
+        || log.contains("correlation maps use PLAIN arithmetic"), log);
   }
 
   @Test

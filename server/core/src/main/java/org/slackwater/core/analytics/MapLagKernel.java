@@ -64,7 +64,19 @@ final class MapLagKernel {
      * jdk.incubator.vector} on a processor with 256-bit vectors and fused multiply-adds, else
      * FUSED where the processor fuses, else PLAIN.
      */
-    static final Arithmetic BEST = VectorCross.usable() ? VECTOR : MapLagKernel.FUSED ? FUSED : PLAIN;
+    static final Arithmetic BEST = vectorUsable() ? VECTOR : MapLagKernel.FUSED ? FUSED : PLAIN;
+
+    /** The module first: without it, merely loading {@link VectorCross} fails. */
+    private static boolean vectorUsable() {
+      if (ModuleLayer.boot().findModule("jdk.incubator.vector").isEmpty()) {
+        return false;
+      }
+      try {
+        return VectorCross.hardware();
+      } catch (LinkageError e) {
+        return false; // present but not readable from here
+      }
+    }
 
     /** Whether this JVM can run it (VECTOR needs the module, FUSED the instruction). */
     boolean available() {

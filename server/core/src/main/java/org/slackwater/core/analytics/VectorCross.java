@@ -14,8 +14,8 @@ import jdk.incubator.vector.VectorSpecies;
  * per row in row order, so the results equal {@code MapLagKernel}'s fused ones bit for bit.
  *
  * <p>The vector API is an incubator module in JDK 17: this class links only when the JVM runs with
- * {@code --add-modules jdk.incubator.vector}. {@link #usable()} is the one entry point callers may
- * reach without it; every other method is called only after it answered true.
+ * {@code --add-modules jdk.incubator.vector}: nothing may load it before {@link
+ * MapLagKernel.Arithmetic} has found the module present (its static fields are vectors).
  */
 final class VectorCross {
   private static final VectorSpecies<Double> S = DoubleVector.SPECIES_256;
@@ -25,24 +25,12 @@ final class VectorCross {
 
   /**
    * Whether the module is there and the processor has 256-bit vectors with fused multiply-adds
-   * (otherwise the JDK emulates the vectors, slower than the scalar loops).
+   * (otherwise the JDK emulates the vectors, slower than the scalar loops). Call only through
+   * {@link MapLagKernel.Arithmetic}, which asks whether the module is present before this class
+   * is loaded: loading it without the module fails.
    */
-  static boolean usable() {
-    if (ModuleLayer.boot().findModule("jdk.incubator.vector").isEmpty()) {
-      return false;
-    }
-    try {
-      return Probe.hardware();
-    } catch (LinkageError e) {
-      return false; // the module is present but not readable from here
-    }
-  }
-
-  /** Kept apart so that {@link #usable} links no vector class before the module is known present. */
-  private static final class Probe {
-    static boolean hardware() {
-      return DoubleVector.SPECIES_PREFERRED.vectorBitSize() >= 256 && MapLagKernel.FUSED;
-    }
+  static boolean hardware() {
+    return DoubleVector.SPECIES_PREFERRED.vectorBitSize() >= 256 && MapLagKernel.FUSED;
   }
 
   /**
