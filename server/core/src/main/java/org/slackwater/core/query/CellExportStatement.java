@@ -28,10 +28,11 @@ import org.slackwater.query.ast.CellExport;
  * (empty where the cube has none, so every step lists the same cells). Cells are those with any
  * area inside the region, as for maps.
  *
- * <p>Rows are produced as they are read ({@link TableStream}): the chunks of one time chunk's
- * tiles at a time, through the shared chunk cache, and {@link TableStream#BATCH_ROWS} rows per
- * batch, so the memory a request holds does not grow with the period or the region. The number
- * of rows is known before the first ({@code rows} in the metadata).
+ * <p>Rows are produced as they are read ({@link TableStream}): a window of steps of every cell at a
+ * time is copied out of the chunks (through the shared chunk cache), and {@link
+ * TableStream#BATCH_ROWS} rows go out per batch, so the memory a request holds is bounded
+ * ({@link #WINDOW_VALUES}) whatever the period or the region. The number of rows is known before
+ * the first ({@code rows} in the metadata).
  */
 final class CellExportStatement {
   private CellExportStatement() {}
@@ -63,7 +64,12 @@ final class CellExportStatement {
   }
 
   static TableStream open(Plan p, ChunkSource cache, String source) {
-    return new Rows(p, cache, header(p, source));
+    return open(p, cache, source, WINDOW_VALUES);
+  }
+
+  /** With the window's size chosen (tests use small windows to cross many of them). */
+  static TableStream open(Plan p, ChunkSource cache, String source, int windowValues) {
+    return new Rows(p, cache, header(p, source), windowValues);
   }
 
   private static ResultTable header(Plan p, String source) {
@@ -92,71 +98,82 @@ final class CellExportStatement {
     return new ResultTable(title, cols, meta, p.warnings());
   }
 
-  /** The cursor over (step, cell): the current step's chunk of each tile, refreshed as steps pass its end. */
+  /** Values a window holds at most (4 bytes each): 64 MB, whatever the region and the period. */
+  static final int WINDOW_VALUES = 1 << 24;
+
+  /**
+   * The cursor over (step, cell). Values are copied a window of steps at a time out of the chunks
+   * (every tile's chunks overlapping the window, one after the other, through the cache) into one
+   * array of steps x cells, so a request holds at most {@link #WINDOW_VALUES} values (or one step) and no chunk
+   * beyond the one being copied, however many tiles the region spans.
+   */
   private static final class Rows implements TableStream {
     private final Plan p;
     private final ChunkSource cache;
     private final ResultTable header;
     private final boolean daily;
     private final TimeAxis time;
-    // Per cell of the weights: its tile, grid row and column, centre, fraction.
-    private final int[] tileOf;
+    private final int m;
+    // Per cell of the weights: grid row and column, centre, fraction.
     private final long[] row;
     private final long[] col;
     private final double[] lat;
     private final double[] lon;
     private final double[] fraction;
-    /** Per tile its chunks in time order, and the one holding the current step (or none). */
-    private final List<List<ChunkRecord>> tileChunks;
-    private final int[] current;
-    private final float[][] values;
-    private final ChunkKey[] keys;
+    /** Per tile: its cells (indices into the weights) and its chunks in time order. */
+    private final List<int[]> tileCells = new ArrayList<>();
+    private final List<List<ChunkRecord>> tileChunks = new ArrayList<>();
+    /** Steps [windowStart, windowEnd) of every cell: window[(t - windowStart) * m + cell], NaN where no chunk holds it. */
+    private final float[] window;
+    private final int windowSteps;
+    private int windowStart;
+    private int windowEnd;
     private int step;
     private int cell;
 
-    Rows(Plan p, ChunkSource cache, ResultTable header) {
+    Rows(Plan p, ChunkSource cache, ResultTable header, int windowValues) {
       this.p = p;
       this.cache = cache;
       this.header = header;
       this.daily = header.columns().get(0) instanceof Column.Dates;
       this.time = p.cube().descriptor().time();
       CellWeights w = p.weights();
-      int m = w.size();
+      m = w.size();
       int rows = p.cube().layout().rows(), cols = p.cube().layout().columns();
       LatLonGrid g = p.cube().descriptor().grid();
-      Map<Long, Integer> tiles = new LinkedHashMap<>();
-      tileOf = new int[m];
+      Map<Long, List<Integer>> tiles = new LinkedHashMap<>();
       row = new long[m];
       col = new long[m];
       lat = new double[m];
       lon = new double[m];
       fraction = new double[m];
       for (int i = 0; i < m; i++) {
-        int y0 = w.row(i) / rows * rows, x0 = w.column(i) / cols * cols;
-        tileOf[i] = tiles.computeIfAbsent(((long) y0 << 32) | x0, k -> tiles.size());
+        long tile = ((long) (w.row(i) / rows * rows) << 32) | (w.column(i) / cols * cols);
+        tiles.computeIfAbsent(tile, k -> new ArrayList<>()).add(i);
         row[i] = w.row(i);
         col[i] = w.column(i);
         lat[i] = g.latCenter(w.row(i));
         lon[i] = g.lonCenter(w.column(i));
         fraction[i] = w.fraction(i);
       }
-      tileChunks = new ArrayList<>();
-      for (int t = 0; t < tiles.size(); t++) {
+      Map<Long, Integer> index = new LinkedHashMap<>();
+      for (Map.Entry<Long, List<Integer>> e : tiles.entrySet()) {
+        index.put(e.getKey(), tileCells.size());
+        tileCells.add(e.getValue().stream().mapToInt(Integer::intValue).toArray());
         tileChunks.add(new ArrayList<>());
       }
       for (ChunkRecord c : p.cube().chunks()) {
-        Integer t = tiles.get(((long) c.key().y0() << 32) | c.key().x0());
+        Integer t = index.get(((long) c.key().y0() << 32) | c.key().x0());
         if (t != null && c.key().t0() < p.range()[1] && c.key().t0() + c.key().nt() > p.range()[0]) {
           tileChunks.get(t).add(c);
         }
       }
       tileChunks.forEach(l -> l.sort(Comparator.comparingInt(c -> c.key().t0())));
-      current = new int[tiles.size()];
-      java.util.Arrays.fill(current, -1);
-      values = new float[tiles.size()][];
-      keys = new ChunkKey[tiles.size()];
+      int steps = p.range()[1] - p.range()[0];
+      windowSteps = m == 0 ? 1 : (int) Math.max(1, Math.min(steps, windowValues / m));
+      window = new float[m == 0 ? 0 : windowSteps * m];
       step = p.range()[0];
-      cell = 0;
+      windowStart = windowEnd = step;
     }
 
     @Override
@@ -166,7 +183,6 @@ final class CellExportStatement {
 
     @Override
     public ResultTable next() throws IOException {
-      int m = p.weights().size();
       long left = (long) (p.range()[1] - step) * m - cell;
       if (m == 0 || left <= 0) {
         return null;
@@ -179,12 +195,13 @@ final class CellExportStatement {
       UnitConversion conv = p.conversion();
       boolean identity = conv.identity();
       for (int k = 0; k < n; ) {
-        if (cell == 0) {
-          advance(step);
+        if (step == windowEnd) {
+          fill(step);
         }
         LocalDate date = daily ? time.date(step) : null;
         String instant = daily ? null : time.instant(step).toString();
         int end = Math.min(m, cell + (n - k));
+        int base = (step - windowStart) * m;
         for (int i = cell; i < end; i++, k++) {
           if (daily) {
             dates[k] = date;
@@ -196,12 +213,7 @@ final class CellExportStatement {
           la[k] = lat[i];
           lo[k] = lon[i];
           fr[k] = fraction[i];
-          float[] tile = values[tileOf[i]];
-          double x = Double.NaN;
-          if (tile != null) {
-            ChunkKey key = keys[tileOf[i]];
-            x = tile[(step - key.t0()) * key.ny() * key.nx() + (int) (row[i] - key.y0()) * key.nx() + (int) (col[i] - key.x0())];
-          }
+          double x = window[base + i];
           v[k] = identity || Double.isNaN(x) ? x : conv.apply(x);
         }
         cell = end;
@@ -217,29 +229,29 @@ final class CellExportStatement {
       return new ResultTable(header.title(), cols, header.metadata(), header.warnings());
     }
 
-    /** Makes each tile's current chunk the one holding step t (none where the cube has no chunk there). */
-    private void advance(int t) throws IOException {
-      for (int tile = 0; tile < current.length; tile++) {
-        List<ChunkRecord> list = tileChunks.get(tile);
-        int at = current[tile];
-        if (at >= 0 && holds(list.get(at), t)) {
-          continue;
-        }
-        int found = -1;
-        for (int q = Math.max(0, at); q < list.size(); q++) {
-          if (holds(list.get(q), t)) {
-            found = q;
-            break;
+    /** Copies steps [from, from + windowSteps) (within the range) of every cell into the window. */
+    private void fill(int from) throws IOException {
+      windowStart = from;
+      windowEnd = Math.min(p.range()[1], from + windowSteps);
+      java.util.Arrays.fill(window, 0, (windowEnd - windowStart) * m, Float.NaN);
+      for (int tile = 0; tile < tileCells.size(); tile++) {
+        int[] cells = tileCells.get(tile);
+        for (ChunkRecord chunk : tileChunks.get(tile)) {
+          ChunkKey key = chunk.key();
+          int t0 = Math.max(windowStart, key.t0()), t1 = Math.min(windowEnd, key.t0() + key.nt());
+          if (t0 >= t1) {
+            continue;
+          }
+          float[] values = cache.get(p.cube(), chunk);
+          int plane = key.ny() * key.nx();
+          for (int t = t0; t < t1; t++) {
+            int src = (t - key.t0()) * plane, dst = (t - windowStart) * m;
+            for (int i : cells) {
+              window[dst + i] = values[src + (int) (row[i] - key.y0()) * key.nx() + (int) (col[i] - key.x0())];
+            }
           }
         }
-        current[tile] = found;
-        keys[tile] = found < 0 ? null : list.get(found).key();
-        values[tile] = found < 0 ? null : cache.get(p.cube(), list.get(found));
       }
-    }
-
-    private static boolean holds(ChunkRecord c, int t) {
-      return t >= c.key().t0() && t < c.key().t0() + c.key().nt();
     }
   }
 }

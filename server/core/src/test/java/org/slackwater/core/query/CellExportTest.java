@@ -108,6 +108,25 @@ class CellExportTest {
   }
 
   @Test
+  void smallWindowsGiveTheSameRowsAsOne() throws IOException {
+    // Windows of 1, 7 and 40 steps cut across the store's 40-day time chunks and 4 x 4 tiles.
+    String q = "cells of temp over \"test box\" from 2014-01-03 to 2014-04-20 in degF";
+    CellExportStatement.Plan plan = (CellExportStatement.Plan) ws.engine().analyze(q).get(0);
+    int m = plan.weights().size();
+    ResultTable whole = TableStream.collect(((QueryEngine.Answer.Rows) ws.engine().open(q)).stream(), Long.MAX_VALUE);
+    for (int steps : new int[] {1, 7, 40}) {
+      ResultTable windowed = TableStream.collect(CellExportStatement.open(plan, new org.slackwater.core.analytics.ChunkCache(ws.store(), 64L << 20), q, steps * m), Long.MAX_VALUE);
+      assertEquals(whole.rowCount(), windowed.rowCount());
+      Column.Doubles a = (Column.Doubles) whole.column("temp"), b = (Column.Doubles) windowed.column("temp");
+      Column.Dates ta = (Column.Dates) whole.column("time"), tb = (Column.Dates) windowed.column("time");
+      for (int r = 0; r < whole.rowCount(); r++) {
+        assertEquals(ta.get(r), tb.get(r), "window of " + steps + " steps, row " + r);
+        assertEquals(Double.doubleToLongBits(a.get(r)), Double.doubleToLongBits(b.get(r)), "window of " + steps + " steps, row " + r);
+      }
+    }
+  }
+
+  @Test
   void unitsAreConvertedValueByValue() {
     ResultTable c = ws.engine().run("cells of temp over \"test box\" during 2014-01-05").get(0);
     ResultTable f = ws.engine().run("cells of temp over \"test box\" during 2014-01-05 in degF").get(0);
