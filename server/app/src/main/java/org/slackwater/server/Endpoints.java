@@ -38,6 +38,8 @@ import org.slackwater.query.QueryException;
 final class Endpoints {
   private static final ObjectMapper JSON = new ObjectMapper();
   private static final String JSON_TYPE = "application/json";
+  /** RFC 4180 with the header row (RFC 4180 section 3, optional header parameter). */
+  private static final String CSV_TYPE = "text/csv; charset=utf-8; header=present";
 
   private final Workspace workspace;
   private final ServerConfig config;
@@ -98,7 +100,7 @@ final class Endpoints {
     }
     String type = switch (format) {
       case ARROW -> ResultFormat.ARROW.mediaType;
-      case CSV -> "text/csv; charset=utf-8; header=present";
+      case CSV -> CSV_TYPE;
       default -> JSON_TYPE;
     };
     return Reply.streamed(type, out -> {
@@ -154,7 +156,7 @@ final class Endpoints {
           return Reply.of(HttpResponseStatus.OK, ResultFormat.ARROW.mediaType, out.toByteArray());
         }
         CsvWriter.write(tables.get(0), new OutputStreamWriter(out, StandardCharsets.UTF_8));
-        return Reply.of(HttpResponseStatus.OK, "text/csv; charset=utf-8; header=present", out.toByteArray());
+        return Reply.of(HttpResponseStatus.OK, CSV_TYPE, out.toByteArray());
       }
       // Watch checks (and, later, alerts) carry a caution; JSON puts it beside the results too.
       JsonWriter.write(tables, tables.stream().map(t -> t.metadata().get("caution")).filter(java.util.Objects::nonNull).distinct().toList(), out);

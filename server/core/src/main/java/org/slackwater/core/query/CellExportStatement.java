@@ -89,13 +89,20 @@ final class CellExportStatement {
     meta.put("order", "by time, then by grid row and column");
     meta.put("region_wkt", p.regionWkt());
     meta.put(ResultKind.KEY, ResultKind.CELLS.label());
-    List<Column> cols = List.of(daily ? new Column.Dates("time", new LocalDate[0]) : new Column.Strings("time", new String[0]),
-        new Column.Longs("row", "", new long[0]), new Column.Longs("column", "", new long[0]),
-        new Column.Doubles("lat", "degrees_north", new double[0]), new Column.Doubles("lon", "degrees_east", new double[0]),
-        new Column.Doubles("fraction_inside", "1", new double[0]), new Column.Doubles(p.cube().name(), p.unit(), new double[0]));
+    List<Column> cols = columns(p, daily ? new LocalDate[0] : null, daily ? null : new String[0], new long[0], new long[0],
+        new double[0], new double[0], new double[0], new double[0]);
     String title = p.cube().name() + " cell by cell over " + p.regionLabel() + ", " + p.query().period().start() + " to "
         + p.query().period().endInclusive();
     return new ResultTable(title, cols, meta, p.warnings());
+  }
+
+  /** The export's columns in their order; time as dates for daily and coarser cubes, else as instants. */
+  private static List<Column> columns(Plan p, LocalDate[] dates, String[] instants, long[] row, long[] column,
+      double[] lat, double[] lon, double[] fraction, double[] value) {
+    return List.of(dates != null ? new Column.Dates("time", dates) : new Column.Strings("time", instants),
+        new Column.Longs("row", "", row), new Column.Longs("column", "", column),
+        new Column.Doubles("lat", "degrees_north", lat), new Column.Doubles("lon", "degrees_east", lon),
+        new Column.Doubles("fraction_inside", "1", fraction), new Column.Doubles(p.cube().name(), p.unit(), value));
   }
 
   /** Values a window holds at most (4 bytes each): 64 MB, whatever the region and the period. */
@@ -222,11 +229,8 @@ final class CellExportStatement {
           step++;
         }
       }
-      List<Column> cols = List.of(daily ? new Column.Dates("time", dates) : new Column.Strings("time", instants),
-          new Column.Longs("row", "", r), new Column.Longs("column", "", c),
-          new Column.Doubles("lat", "degrees_north", la), new Column.Doubles("lon", "degrees_east", lo),
-          new Column.Doubles("fraction_inside", "1", fr), new Column.Doubles(p.cube().name(), p.unit(), v));
-      return new ResultTable(header.title(), cols, header.metadata(), header.warnings());
+      return new ResultTable(header.title(), columns(p, dates, instants, r, c, la, lo, fr, v), header.metadata(),
+          header.warnings());
     }
 
     /** Copies steps [from, from + windowSteps) (within the range) of every cell into the window. */

@@ -65,6 +65,10 @@ public final class QueryEngine {
             "ask the HTTP query endpoint (POST /api/query), which streams it as CSV, JSON or Arrow, or export a shorter period or a smaller region");
       }
     }
+    return executeAll(a, text);
+  }
+
+  private List<ResultTable> executeAll(Analysis a, String text) {
     ChunkSource chunks = a.derived().chunks(cache);
     List<ResultTable> out = new ArrayList<>();
     for (int i = 0; i < a.plans().size(); i++) {
@@ -98,12 +102,7 @@ public final class QueryEngine {
       }
     }
     if (exports == 0) {
-      ChunkSource chunks = a.derived().chunks(cache);
-      List<ResultTable> out = new ArrayList<>();
-      for (int i = 0; i < a.plans().size(); i++) {
-        out.add(execute(a.plans().get(i), chunks, text).with(ResultKind.KEY, a.kinds().get(i).label()));
-      }
-      return new Answer.Tables(out);
+      return new Answer.Tables(executeAll(a, text));
     }
     for (int i = 0; i < a.plans().size(); i++) {
       if (a.kinds().get(i) != ResultKind.DEFINITION && a.kinds().get(i) != ResultKind.CELLS) {
