@@ -69,7 +69,9 @@ class StreamingExportTest {
     Files.delete(file);
     String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
     // No --add-modules: the server runs as 'java -jar' starts it, with the scalar correlation-map kernel.
-    List<String> cmd = new ArrayList<>(List.of(java, "-Xmx128m"));
+    // The server's own logging (INFO), not the tests' (WARN): the test reads what it says.
+    String logging = Path.of(StreamingExportTest.class.getClassLoader().getResource("logback.xml").toURI()).toString();
+    List<String> cmd = new ArrayList<>(List.of(java, "-Xmx128m", "-Dlogback.configurationFile=" + logging));
     for (String pkg : List.of("java.nio", "sun.nio.ch", "java.lang", "java.util", "java.lang.invoke")) {
       cmd.add("--add-opens=java.base/" + pkg + "=ALL-UNNAMED");
     }
@@ -146,6 +148,30 @@ class StreamingExportTest {
     String log = Files.readString(dir.resolve("server.log"));
     assertTrue(log.contains("correlation maps use FUSED arithmetic (start Java with --add-modules=jdk.incubator.vector")
         || log.contains("correlation maps use PLAIN arithmetic"), log);
+  }
+
+  @Test
+  void aClientThatLeavesMidExportStopsTheExportAndTheServerGoesOn() throws Exception {
+    URI base = URI.create(url);
+    byte[] body = LongRecord.exportQuery(NT, NY, NX).getBytes(StandardCharsets.UTF_8);
+    try (java.net.Socket socket = new java.net.Socket(base.getHost(), base.getPort())) {
+      socket.getOutputStream().write(("POST /api/query?format=csv HTTP/1.1\r\nHost: x\r\nContent-Length: " + body.length
+          + "\r\n\r\n").getBytes(StandardCharsets.US_ASCII));
+      socket.getOutputStream().write(body);
+      socket.getOutputStream().flush();
+      // Read a little of the answer (the export is some 600 MB of CSV), then leave.
+      byte[] some = socket.getInputStream().readNBytes(1 << 20);
+      assertTrue(new String(some, 0, 200, StandardCharsets.US_ASCII).startsWith("HTTP/1.1 200"), "the export started");
+    }
+    // The producer sees the closed channel at its next chunk and stops (ChunkedBody), and says so.
+    long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(30);
+    while (!Files.readString(dir.resolve("server.log")).contains("client left") && System.nanoTime() < deadline) {
+      Thread.sleep(100);
+    }
+    assertTrue(Files.readString(dir.resolve("server.log")).contains("client left"), Files.readString(dir.resolve("server.log")));
+    HttpResponse<InputStream> after = post("cells of record_temperature over box(44, -32, 44.1, -31.9) during 2006-03-01", "json");
+    assertEquals(200, after.statusCode());
+    assertEquals(4, new ObjectMapper().readTree(after.body()).get("results").get(0).get("rows").size());
   }
 
   @Test
