@@ -43,12 +43,8 @@ final class MapLagKernel {
   static final int LAG_GROUP = 32;
   /** Values of one time segment (rows x lanes): 256 KB of doubles, inside a core's L2 cache. */
   private static final int SEGMENT_VALUES = 1 << 15;
-  /**
-   * Whether the JVM compiles {@link Math#fma} to the processor's fused multiply-add: then the
-   * kernel uses it (one instruction and one rounding per step instead of two); without it
-   * Math.fma is emulated in software, far too slow, and the kernel multiplies and adds.
-   */
-  static final boolean FUSED = fusedMultiplyAdd();
+  /** Whether {@link Math#fma} is the processor's instruction ({@link FusedMultiplyAdd}). */
+  static final boolean FUSED = FusedMultiplyAdd.AVAILABLE;
 
   /** How the cross products are formed; every choice gives the same sums up to rounding. */
   enum Arithmetic {
@@ -200,16 +196,6 @@ final class MapLagKernel {
 
   private int clip(long row) {
     return (int) Math.max(0, Math.min(rows, row));
-  }
-
-  private static boolean fusedMultiplyAdd() {
-    try {
-      com.sun.management.HotSpotDiagnosticMXBean vm = java.lang.management.ManagementFactory.getPlatformMXBean(
-          com.sun.management.HotSpotDiagnosticMXBean.class);
-      return vm != null && Boolean.parseBoolean(vm.getVMOption("UseFMA").getValue());
-    } catch (RuntimeException | LinkageError e) {
-      return false; // not a HotSpot JVM, or no such option: multiply and add, always correct
-    }
   }
 
   /** Doubles a kernel holds for this width, rows and number of lags (the worker's memory bound). */
