@@ -277,7 +277,7 @@ public final class QueryEngine {
         return MapStatements.execute(p, cache, text);
       }
       if (plan instanceof CellExportStatement.Plan p) {
-        return TableStream.collect(CellExportStatement.open(p, cache, text), MAX_HELD_ROWS);
+        return TableStream.collect(CellExportStatement.open(p, cache, text)); // run() checked MAX_HELD_ROWS
       }
       if (plan instanceof CorrelationMapStatement.Plan p) {
         try {

@@ -52,38 +52,16 @@ public interface TableStream extends AutoCloseable {
   }
 
   /**
-   * Reads the whole stream into one table (for callers that need every row at once), refusing
-   * more than {@code maxRows} rows so a huge result fails with a message rather than the heap.
-   *
-   * @throws TooLongException past {@code maxRows} rows
+   * Reads the whole stream into one table, for callers that need every row at once and have
+   * checked that the rows fit (e.g. {@code QueryEngine.run} against its row limit), and closes it.
    */
-  static ResultTable collect(TableStream stream, long maxRows) throws IOException {
+  static ResultTable collect(TableStream stream) throws IOException {
     try (stream) {
       List<ResultTable> parts = new ArrayList<>();
-      long rows = 0;
       for (ResultTable b = stream.next(); b != null; b = stream.next()) {
-        rows += b.rowCount();
-        if (rows > maxRows) {
-          throw new TooLongException(maxRows);
-        }
         parts.add(b);
       }
       return Batches.concat(stream.header(), parts);
-    }
-  }
-
-  /** A stream longer than its reader can hold. */
-  final class TooLongException extends RuntimeException {
-    private static final long serialVersionUID = 1L;
-    private final long maxRows;
-
-    public TooLongException(long maxRows) {
-      super("the result has more than " + maxRows + " rows, too many to hold in one answer");
-      this.maxRows = maxRows;
-    }
-
-    public long maxRows() {
-      return maxRows;
     }
   }
 }

@@ -71,7 +71,7 @@ class CellExportTest {
     LatLonGrid g = FakeSource.grid(9, 7);
     QueryEngine.Answer answer = ws.engine().open(q);
     TableStream stream = ((QueryEngine.Answer.Rows) answer).stream();
-    ResultTable all = TableStream.collect(stream, Long.MAX_VALUE);
+    ResultTable all = TableStream.collect(stream);
     int days = 59; // 2014-02-01 .. 2014-03-31
     assertEquals((long) days * w.size(), all.rowCount());
     assertEquals(Long.toString((long) days * w.size()), all.metadata().get("rows"));
@@ -113,9 +113,9 @@ class CellExportTest {
     String q = "cells of temp over \"test box\" from 2014-01-03 to 2014-04-20 in degF";
     CellExportStatement.Plan plan = (CellExportStatement.Plan) ws.engine().analyze(q).get(0);
     int m = plan.weights().size();
-    ResultTable whole = TableStream.collect(((QueryEngine.Answer.Rows) ws.engine().open(q)).stream(), Long.MAX_VALUE);
+    ResultTable whole = TableStream.collect(((QueryEngine.Answer.Rows) ws.engine().open(q)).stream());
     for (int steps : new int[] {1, 7, 40}) {
-      ResultTable windowed = TableStream.collect(CellExportStatement.open(plan, new org.slackwater.core.analytics.ChunkCache(ws.store(), 64L << 20), q, steps * m), Long.MAX_VALUE);
+      ResultTable windowed = TableStream.collect(CellExportStatement.open(plan, new org.slackwater.core.analytics.ChunkCache(ws.store(), 64L << 20), q, steps * m));
       assertEquals(whole.rowCount(), windowed.rowCount());
       Column.Doubles a = (Column.Doubles) whole.column("temp"), b = (Column.Doubles) windowed.column("temp");
       Column.Dates ta = (Column.Dates) whole.column("time"), tb = (Column.Dates) windowed.column("time");
@@ -193,7 +193,7 @@ class CellExportTest {
     assertEquals(17, e.column());
     assertTrue(e.getMessage().contains("only statement"), e.getMessage());
     QueryEngine.Answer ok = ws.engine().open("let warm = temp * 2; cells of warm over \"test box\" during 2014-01-02");
-    ResultTable t = TableStream.collect(((QueryEngine.Answer.Rows) ok).stream(), Long.MAX_VALUE);
+    ResultTable t = TableStream.collect(((QueryEngine.Answer.Rows) ok).stream());
     Column.Doubles v = (Column.Doubles) t.column("warm");
     CellWeights w = RegionWeights.compute(FakeSource.grid(9, 7), box.geometry());
     for (int i = 0; i < w.size(); i++) {
