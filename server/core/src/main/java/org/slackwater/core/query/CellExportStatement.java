@@ -31,7 +31,7 @@ import org.slackwater.query.ast.CellExport;
  * <p>Rows are produced as they are read ({@link TableStream}): a window of steps of every cell at a
  * time is copied out of the chunks (through the shared chunk cache), and {@link
  * TableStream#BATCH_ROWS} rows go out per batch, so the memory a request holds is bounded
- * ({@link #WINDOW_VALUES}) whatever the period or the region. The number of rows is known before
+ * ({@link #windowValues}: at most 64 MB and a sixteenth of the heap) whatever the period or the region. The number of rows is known before
  * the first ({@code rows} in the metadata).
  */
 final class CellExportStatement {
@@ -64,7 +64,16 @@ final class CellExportStatement {
   }
 
   static TableStream open(Plan p, ChunkSource cache, String source) {
-    return open(p, cache, source, WINDOW_VALUES);
+    return open(p, cache, source, windowValues(Runtime.getRuntime().maxMemory()));
+  }
+
+  /**
+   * The window for a heap of {@code maxHeapBytes}: {@link #WINDOW_VALUES}, or a sixteenth of the
+   * heap where that is less, so that beside the chunk cache (a quarter of the heap) and the batches
+   * a small heap keeps room (with 128 MB, 2 M values).
+   */
+  static int windowValues(long maxHeapBytes) {
+    return (int) Math.max(1, Math.min(WINDOW_VALUES, maxHeapBytes / 16 / Float.BYTES));
   }
 
   /** With the window's size chosen (tests use small windows to cross many of them). */
@@ -105,7 +114,7 @@ final class CellExportStatement {
         new Column.Doubles("fraction_inside", "1", fraction), new Column.Doubles(p.cube().name(), p.unit(), value));
   }
 
-  /** Values a window holds at most (4 bytes each): 64 MB, whatever the region and the period. */
+  /** Values a window holds at most (4 bytes each): 64 MB, whatever the region and the period; less on a small heap. */
   static final int WINDOW_VALUES = 1 << 24;
 
   /**

@@ -127,6 +127,13 @@ class CellExportTest {
   }
 
   @Test
+  void theWindowShrinksWithTheHeap() {
+    assertEquals(CellExportStatement.WINDOW_VALUES, CellExportStatement.windowValues(8L << 30));
+    assertEquals(2 << 20, CellExportStatement.windowValues(128L << 20)); // 128 MB / 16 / 4 bytes
+    assertEquals(1, CellExportStatement.windowValues(0));
+  }
+
+  @Test
   void unitsAreConvertedValueByValue() {
     ResultTable c = ws.engine().run("cells of temp over \"test box\" during 2014-01-05").get(0);
     ResultTable f = ws.engine().run("cells of temp over \"test box\" during 2014-01-05 in degF").get(0);
